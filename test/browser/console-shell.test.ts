@@ -1,0 +1,59 @@
+/// <reference lib="dom" />
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, type BrowserSession } from '../support/browser.js';
+import { startServer, type RunningServer } from '../support/running-server.js';
+import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
+
+interface FontState {
+  family: string;
+  status: string;
+}
+
+describe('the built console in Chromium', () => {
+  let db: TestDatabase;
+  let server: RunningServer;
+  let browser: BrowserSession;
+  const requested: string[] = [];
+  const fontResponses: string[] = [];
+  let fonts: FontState[] = [];
+
+  beforeAll(async () => {
+    db = await createTestDatabase();
+    server = await startServer(db);
+    browser = await openBrowser();
+    const page = await browser.context.newPage();
+    page.on('request', (r) => requested.push(r.url()));
+    page.on('response', (r) => {
+      if (/\.(woff2?|ttf)(\?|$)/.test(r.url()) && r.ok()) fontResponses.push(r.url());
+    });
+    await page.goto(`${server.baseUrl}/`);
+    await page.getByTestId('shell-title').waitFor();
+    await page.evaluate(() => document.fonts.ready);
+    fonts = await page.evaluate(() => [...document.fonts].map((f) => ({ family: f.family.replace(/"/g, ''), status: f.status })));
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+    await db?.drop();
+  });
+
+  it('renders the shell with the product name and the navigation', async () => {
+    const page = browser.context.pages()[0]!;
+    await expect(page.getByTestId('shell-title').textContent()).resolves.toContain('Clinometer');
+    await expect(page.getByTestId('nav').isVisible()).resolves.toBe(true);
+  });
+
+  it('loads Fira Sans and the icon font from the app itself', () => {
+    expect(fonts.some((f) => f.family === 'Fira Sans' && f.status === 'loaded')).toBe(true);
+    expect(fonts.some((f) => f.family === 'Material Symbols Outlined' && f.status === 'loaded')).toBe(true);
+    expect(fontResponses.length).toBeGreaterThanOrEqual(2);
+    for (const url of fontResponses) expect(new URL(url).origin).toBe(server.baseUrl);
+  });
+
+  it('sends no request outside the app origin', () => {
+    expect(requested.length).toBeGreaterThan(0);
+    const outside = requested.filter((u) => !u.startsWith(`${server.baseUrl}/`) && !u.startsWith('data:'));
+    expect(outside).toEqual([]);
+  });
+});
