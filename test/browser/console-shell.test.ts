@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
