@@ -6,7 +6,7 @@ import helmet from 'helmet';
 import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { resolveFromRoot, type Settings } from './config.js';
-import { healthRoutes } from './health/health.routes.js';
+import { apiRoutes } from './api-routes.js';
 import { apiNotFound, errorHandler } from './shared/error-handler.js';
 
 export interface AppDependencies {
@@ -28,7 +28,7 @@ export function createApp({ settings, sequelize, logger }: AppDependencies): Exp
     next();
   });
   app.use('/api', express.json({ limit: settings.server.bodyLimit }));
-  app.use('/api', healthRoutes(sequelize));
+  app.use('/api', apiRoutes({ settings, sequelize, logger }));
   app.use('/api', apiNotFound);
   app.use('/api', errorHandler(logger));
   serveConsole(app, resolveFromRoot(settings.server.consoleDir));
