@@ -66,6 +66,8 @@ export interface SecurityResult {
   readonly firstPeriod: string | null;
   readonly lastPeriod: string | null;
   readonly estimator: BaseEstimator;
+  readonly baseN: number; // observations in the base estimator's own sample (Dimson and Scholes–Williams lose the last k)
+  readonly residualDf: number; // degrees of freedom behind betaT, betaP and the 95% interval
   readonly alpha: number; // per period
   readonly alphaSe: number;
   readonly beta: number; // base estimator's beta
@@ -91,4 +93,27 @@ export interface SecurityResult {
   readonly zeroReturnShare: number; // share of zero security returns in the window (stale prices)
   readonly rollingBetaRange: number; // max - min of the rolling betas (NaN without any)
   readonly flags: readonly ResultFlag[];
+}
+
+/** An inclusive range of grid indices [start, end]; for an estimation window, end is the as-of period. */
+export interface IndexRange {
+  readonly start: number;
+  readonly end: number;
+}
+
+/** One base estimator's result on its own sample. Numbers are NaN when not defined. */
+export interface BetaEstimate {
+  readonly estimator: BaseEstimator;
+  readonly n: number; // observations in the estimator's sample
+  readonly residualDf: number; // degrees of freedom for t, p and the interval
+  readonly firstIndex: number; // grid index of the sample's first observation (-1 when empty)
+  readonly lastIndex: number;
+  readonly alpha: number; // per period
+  readonly alphaSe: number;
+  readonly beta: number;
+  readonly betaSe: number;
+  readonly rSquared: number;
+  readonly adjRSquared: number;
+  readonly residualSd: number; // per period
+  readonly ssr: number;
 }
