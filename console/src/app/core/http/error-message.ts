@@ -1,0 +1,36 @@
+import { HttpErrorResponse } from '@angular/common/http';
+
+/** The server's error envelope: `{ error: { code, message, details? } }`. */
+interface ErrorEnvelope {
+  readonly error: { readonly code: string; readonly message: string };
+}
+
+function isErrorEnvelope(body: unknown): body is ErrorEnvelope {
+  if (typeof body !== 'object' || body === null || !('error' in body)) {
+    return false;
+  }
+  const inner: unknown = body.error;
+  return (
+    typeof inner === 'object' &&
+    inner !== null &&
+    'message' in inner &&
+    typeof inner.message === 'string' &&
+    'code' in inner &&
+    typeof inner.code === 'string'
+  );
+}
+
+/** A sentence for a person, from whatever a failed request produced. */
+export function errorMessage(error: unknown): string {
+  if (!(error instanceof HttpErrorResponse)) {
+    return 'Something went wrong. Please try again.';
+  }
+  if (error.status === 0) {
+    return 'The Clinometer server cannot be reached. Check the connection and try again.';
+  }
+  if (isErrorEnvelope(error.error)) {
+    return error.error.error.message;
+  }
+  const status = [String(error.status), error.statusText].filter((part) => part !== '').join(' ');
+  return `The server answered ${status}.`;
+}

@@ -1,0 +1,3 @@
+import { areaComingRoutes } from '../shared/area-coming/area-coming-routes';
+
+export const runsRoutes = areaComingRoutes('runs');
