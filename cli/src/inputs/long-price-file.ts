@@ -1,0 +1,105 @@
+// Reader for the long layout: `date,security,close`, one row per security and date, in any order.
+// Each security keeps its own calendar; a security and date given twice is refused.
+import { isoOfDayNumber } from '../engine/calendar-date.js';
+import { badDate, badPrice, repeatedDate } from './cell-problems.js';
+import { visitCsv } from './csv-records.js';
+import { ascendingOrder, findRepeatedDate, permuteFloat64, permuteInt32 } from './date-order.js';
+import { compileDateFormat } from './date-format.js';
+import {
+  growableFloat64, growableInt32, pushFloat64, pushInt32, trimmedFloat64, trimmedInt32,
+} from './growable-array.js';
+import type { GrowableFloat64, GrowableInt32 } from './growable-array.js';
+import { requireColumn } from './header-columns.js';
+import { excerpt, InputError } from './input-error.js';
+import { fastPrice, trimPadding } from './number-cell.js';
+import type { DatedSeries, PriceFileContents, LongLayout, PriceFileOptions } from './price-file-options.js';
+
+interface SecurityRows {
+  readonly days: GrowableInt32;
+  readonly prices: GrowableFloat64;
+  readonly lines: GrowableInt32;
+}
+
+interface LongFields {
+  names: readonly string[];
+  date: number;
+  security: number;
+  close: number;
+}
+
+function rowsOf(bySecurity: Map<string, SecurityRows>, code: string): SecurityRows {
+  let rows = bySecurity.get(code);
+  if (rows === undefined) {
+    rows = { days: growableInt32(16), prices: growableFloat64(16), lines: growableInt32(16) };
+    bySecurity.set(code, rows);
+  }
+  return rows;
+}
+
+async function readRows(file: string, options: PriceFileOptions, layout: LongLayout): Promise<{ fields: LongFields; bySecurity: Map<string, SecurityRows> }> {
+  const format = compileDateFormat(options.dateFormat);
+  const fields: LongFields = { names: [], date: 0, security: 0, close: 0 };
+  const bySecurity = new Map<string, SecurityRows>();
+  await visitCsv(file, options, {
+    header(names) {
+      fields.names = names;
+      fields.date = requireColumn(file, names, layout.dateColumn, 'INPUT_NO_DATE_COLUMN', 'date');
+      fields.security = requireColumn(file, names, layout.securityColumn, 'INPUT_NO_VALUE_COLUMN', 'security');
+      fields.close = requireColumn(file, names, layout.closeColumn, 'INPUT_NO_VALUE_COLUMN', 'close');
+    },
+    row(cells, line) {
+      const place = (field: number) => ({ file, line, field, columnName: fields.names[field]! });
+      const day = format.parse(trimPadding(cells[fields.date]!));
+      if (Number.isNaN(day)) throw badDate(place(fields.date), cells[fields.date]!, format);
+      const code = trimPadding(cells[fields.security]!);
+      if (code === '') {
+        throw new InputError({ code: 'INPUT_EMPTY_SECURITY', ...placeOf(place(fields.security)), reason: 'the security code is empty' });
+      }
+      const price = fastPrice(cells[fields.close]!);
+      if (price === -1) throw badPrice(place(fields.close), cells[fields.close]!);
+      const rows = rowsOf(bySecurity, code);
+      pushInt32(rows.days, day);
+      pushFloat64(rows.prices, price);
+      pushInt32(rows.lines, line);
+    },
+  });
+  return { fields, bySecurity };
+}
+
+function placeOf(place: { file: string; line: number; field: number; columnName: string }) {
+  return { file: place.file, line: place.line, column: place.field + 1, columnName: place.columnName };
+}
+
+/** Shares ISO date strings between securities so a long file holds one string per distinct date. */
+function isoInterner(): (day: number) => string {
+  const cache = new Map<number, string>();
+  return (day) => {
+    let iso = cache.get(day);
+    if (iso === undefined) {
+      iso = isoOfDayNumber(day);
+      cache.set(day, iso);
+    }
+    return iso;
+  };
+}
+
+/** Reads a long price file; securities in order of first appearance, each sorted by date. */
+export async function readLongPriceFile(
+  file: string, options: PriceFileOptions, layout: LongLayout,
+): Promise<PriceFileContents> {
+  const { fields, bySecurity } = await readRows(file, options, layout);
+  const iso = isoInterner();
+  const series: DatedSeries[] = [];
+  for (const [id, rows] of bySecurity) {
+    const days = trimmedInt32(rows.days);
+    const order = ascendingOrder(days);
+    const repeat = findRepeatedDate(days, order);
+    if (repeat !== null) {
+      const place = { file, line: rows.lines.data[repeat.repeat]!, field: fields.date, columnName: fields.names[fields.date]! };
+      throw repeatedDate(place, iso(days[repeat.repeat]!), rows.lines.data[repeat.first]!, ` for security ${excerpt(id)}`);
+    }
+    const sortedDays = permuteInt32(days, order);
+    series.push({ id, days: sortedDays, dates: Array.from(sortedDays, iso), prices: permuteFloat64(trimmedFloat64(rows.prices), order) });
+  }
+  return { series, header: fields.names };
+}
