@@ -39,7 +39,7 @@ export function createApp({ settings, sequelize, logger }: AppDependencies): Exp
 function serveConsole(app: Express, dir: string): void {
   const index = path.join(dir, 'index.html');
   app.use(express.static(dir, { index: false, maxAge: '1h' }));
-  app.get('/*splat', (_req, res) => {
+  app.get('/{*splat}', (_req, res) => {
     if (existsSync(index)) res.sendFile(index);
     else res.status(503).type('text').send('The console is not built yet: run npm start (it builds it) or npx ng build.');
   });

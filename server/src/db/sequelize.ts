@@ -9,7 +9,7 @@ export function createSequelize(database: Settings['database'], logger?: Logger)
     port: database.port,
     dialect: 'mariadb',
     logging: logger ? (sql: string) => logger.trace({ sql }, 'sql') : false,
-    dialectOptions: { connectTimeout: 5000, timezone: 'Etc/GMT0' },
+    dialectOptions: { connectTimeout: 5000 },
     timezone: '+00:00',
     define: { underscored: true, charset: 'utf8mb4', collate: 'utf8mb4_unicode_ci' },
     pool: { max: 10, min: 0, idle: 10_000 },
