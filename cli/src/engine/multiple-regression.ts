@@ -134,13 +134,20 @@ function coefficientCovariance(gram: Float64Array, means: Float64Array, variance
   return cov;
 }
 
+/** Index of the first value that is not a finite number, or -1. */
+function firstNonFinite(v: Float64Array): number {
+  for (let i = 0; i < v.length; i += 1) if (!Number.isFinite(v[i])) return i;
+  return -1;
+}
+
 function checkInputs(y: Float64Array, columns: readonly Float64Array[]): void {
-  const bad = (v: Float64Array) => v.findIndex((value) => !Number.isFinite(value));
   if (y.length <= columns.length) throw new RangeError(`${y.length} observations cannot fit ${columns.length} regressors and an intercept`);
-  if (bad(y) >= 0) throw new RangeError(`y[${bad(y)}] is not a finite number`);
+  const badY = firstNonFinite(y);
+  if (badY >= 0) throw new RangeError(`y[${badY}] is not a finite number`);
   columns.forEach((column, j) => {
     if (column.length !== y.length) throw new RangeError(`regressor ${j + 1} has ${column.length} values, y has ${y.length}`);
-    if (bad(column) >= 0) throw new RangeError(`regressor ${j + 1} value ${bad(column)} is not a finite number`);
+    const bad = firstNonFinite(column);
+    if (bad >= 0) throw new RangeError(`regressor ${j + 1} value ${bad} is not a finite number`);
   });
 }
 
