@@ -11,8 +11,10 @@ export const ERROR_CODES = [
   // Input files (the price, market and risk-free readers)
   'INPUT_UNREADABLE',
   'INPUT_NOT_UTF8',
+  'INPUT_NOT_CSV',
   'INPUT_EMPTY',
   'INPUT_NO_DATE_COLUMN',
+  'INPUT_NO_VALUE_COLUMN',
   'INPUT_FIELD_COUNT',
   'INPUT_BAD_DATE',
   'INPUT_DUPLICATE_DATE',

@@ -28,7 +28,7 @@ const runSpecShape = z.strictObject({
   sampling: samplingSchema.prefault({}).describe('How prices become returns: the grid, the window and the as-of date.'),
   estimation: estimationSchema.prefault({}).describe('How beta is estimated and adjusted.'),
   pricing: pricingSchema.optional().describe('CAPM pricing: expected return = r_f + β·(E[R_m] − r_f) + add-on premia; without it the expected-return columns are empty.'),
-  capitalStructure: capitalStructureSchema.optional().describe('Unlevering, relevering and WACC inputs; optional.'),
+  capitalStructure: capitalStructureSchema.optional().describe('Unlevering, relevering and WACC inputs; without it the capital-structure columns are empty.'),
   flags: flagsSchema.prefault({}).describe('Thresholds of the review flags.'),
   report: reportSchema.prefault({}).describe('What the released report holds and who receives it.'),
   groups: groupsSchema.optional().describe('Security code → group label (e.g. a sector), for Vasicek priors by group and the report\'s group column.'),
