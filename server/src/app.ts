@@ -7,6 +7,8 @@ import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { resolveFromRoot, type Settings } from './config.js';
 import { apiRoutes } from './api-routes.js';
+import { authMiddleware } from './auth/auth-middleware.js';
+import { initModels } from './db/init-models.js';
 import { apiNotFound, errorHandler } from './shared/error-handler.js';
 
 export interface AppDependencies {
@@ -17,6 +19,7 @@ export interface AppDependencies {
 
 /** The Express application: API under /api, the built console for everything else. */
 export function createApp({ settings, sequelize, logger }: AppDependencies): Express {
+  initModels(sequelize);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -28,6 +31,7 @@ export function createApp({ settings, sequelize, logger }: AppDependencies): Exp
     next();
   });
   app.use('/api', express.json({ limit: settings.server.bodyLimit }));
+  app.use('/api', authMiddleware({ settings, sequelize, logger }));
   app.use('/api', apiRoutes({ settings, sequelize, logger }));
   app.use('/api', apiNotFound);
   app.use('/api', errorHandler(logger));

@@ -31,6 +31,13 @@ const settingsSchema = z.object({
     sink: booleanText,
   }),
   log: z.object({ level: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']) }),
+  auth: z.object({
+    sessionHours: z.coerce.number().positive().max(24 * 30),
+    loginMaxFailures: z.coerce.number().int().min(1).max(1000),
+    loginWindowMinutes: z.coerce.number().positive().max(24 * 60),
+    passwordHashRounds: z.coerce.number().int().min(4).max(15),
+    demoMachineToken: z.string(),
+  }),
 });
 
 export type Settings = z.infer<typeof settingsSchema>;
@@ -57,6 +64,11 @@ const environmentNames: Record<string, [keyof Settings, string]> = {
   CLINO_MAIL_FROM: ['mail', 'from'],
   CLINO_MAIL_SINK: ['mail', 'sink'],
   CLINO_LOG_LEVEL: ['log', 'level'],
+  CLINO_SESSION_HOURS: ['auth', 'sessionHours'],
+  CLINO_LOGIN_MAX_FAILURES: ['auth', 'loginMaxFailures'],
+  CLINO_LOGIN_WINDOW_MINUTES: ['auth', 'loginWindowMinutes'],
+  CLINO_PASSWORD_HASH_ROUNDS: ['auth', 'passwordHashRounds'],
+  CLINO_DEMO_MACHINE_TOKEN: ['auth', 'demoMachineToken'],
 };
 
 /** Settings resolve in one place: environment > config file > defaults in config/default.yaml. */

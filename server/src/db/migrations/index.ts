@@ -1,6 +1,10 @@
 import type { MigrationFn } from 'umzug';
 import type { MigrationContext } from '../migrator.js';
 import * as m0001 from './0001-instance-settings.js';
+import * as m0002 from './0002-users.js';
+import * as m0003 from './0003-machine-tokens.js';
+import * as m0004 from './0004-sessions.js';
+import * as m0005 from './0005-audit-events.js';
 import * as m0010 from './0010-jobs.js';
 import * as m0011 from './0011-specs.js';
 import * as m0012 from './0012-runs.js';
@@ -18,6 +22,10 @@ interface MigrationModule {
 /** Every migration, in the order it applies. Add a new file here with the next number. */
 export const migrations: readonly { name: string; module: MigrationModule }[] = [
   { name: '0001-instance-settings', module: m0001 },
+  { name: '0002-users', module: m0002 },
+  { name: '0003-machine-tokens', module: m0003 },
+  { name: '0004-sessions', module: m0004 },
+  { name: '0005-audit-events', module: m0005 },
   { name: '0010-jobs', module: m0010 },
   { name: '0011-specs', module: m0011 },
   { name: '0012-runs', module: m0012 },
