@@ -1,6 +1,7 @@
 /// <reference lib="dom" />
 /// <reference lib="dom.iterable" />
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { openBrowser, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
 import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
@@ -14,6 +15,7 @@ describe('the built console in Chromium', () => {
   let db: TestDatabase;
   let server: RunningServer;
   let browser: BrowserSession;
+  let page: Page;
   const requested: string[] = [];
   const fontResponses: string[] = [];
   let fonts: FontState[] = [];
@@ -22,7 +24,7 @@ describe('the built console in Chromium', () => {
     db = await createTestDatabase();
     server = await startServer(db);
     browser = await openBrowser();
-    const page = await browser.context.newPage();
+    page = await browser.context.newPage();
     page.on('request', (r) => requested.push(r.url()));
     page.on('response', (r) => {
       if (/\.(woff2?|ttf)(\?|$)/.test(r.url()) && r.ok()) fontResponses.push(r.url());
@@ -40,7 +42,6 @@ describe('the built console in Chromium', () => {
   });
 
   it('renders the shell with the product name and the navigation', async () => {
-    const page = browser.context.pages()[0]!;
     await expect(page.getByTestId('shell-title').textContent()).resolves.toContain('Clinometer');
     await expect(page.getByTestId('nav').isVisible()).resolves.toBe(true);
   });
