@@ -2,9 +2,9 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 
-/** What the sign-in form sends; field names are passport-local's defaults. */
+/** What the sign-in form sends; the server's local strategy reads `userName` and `password`. */
 export interface SignInRequest {
-  readonly username: string;
+  readonly userName: string;
   readonly password: string;
 }
 

@@ -1,11 +1,12 @@
 import { HttpErrorResponse } from '@angular/common/http';
+import type { ErrorBody } from '@contracts/errors.js';
 
-/** The server's error envelope: `{ error: { code, message, details? } }`. */
-interface ErrorEnvelope {
-  readonly error: { readonly code: string; readonly message: string };
+/** The part of the server's error envelope (`{ error: { code, message, details? } }`) shown to people. */
+interface EnvelopeMessage {
+  readonly error: Pick<ErrorBody, 'message'>;
 }
 
-function isErrorEnvelope(body: unknown): body is ErrorEnvelope {
+function isErrorEnvelope(body: unknown): body is EnvelopeMessage {
   if (typeof body !== 'object' || body === null || !('error' in body)) {
     return false;
   }

@@ -33,7 +33,7 @@ export class SignIn {
   readonly returnUrl = input<string>();
 
   protected readonly form = inject(NonNullableFormBuilder).group({
-    username: ['', [Validators.required, Validators.pattern(/\S/)]],
+    userName: ['', [Validators.required, Validators.pattern(/\S/)]],
     password: ['', Validators.required],
   });
   private readonly status = toSignal(this.form.statusChanges, { initialValue: this.form.status });
@@ -46,10 +46,10 @@ export class SignIn {
     if (!this.canSubmit()) {
       return;
     }
-    const { username, password } = this.form.getRawValue();
+    const { userName, password } = this.form.getRawValue();
     this.pending.set(true);
     this.failure.set(null);
-    this.session.signIn({ username: username.trim(), password }).subscribe({
+    this.session.signIn({ userName: userName.trim(), password }).subscribe({
       next: () => {
         this.pending.set(false);
         const target = this.returnUrl();
