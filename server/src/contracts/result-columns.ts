@@ -78,6 +78,10 @@ function text<N extends string>(
   return { name, unit: 'text', description, type: 'text', fromInput, value };
 }
 
+function period<N extends string>(name: N, description: string, value: (row: ResultRow) => string | null): TextColumn<N> {
+  return { name, unit: 'period label', description, type: 'text', fromInput: false, value };
+}
+
 /** Flags in a fixed order, so a row's flags cell never depends on the order the engine set them. */
 export const FLAG_ORDER: readonly ResultFlag[] = ['thin-data', 'low-fit', 'stale-prices', 'unstable', 'big-move', 'degenerate'];
 
@@ -94,8 +98,8 @@ export const RESULT_COLUMNS = [
   text('status', '`ok`, or `insufficient` when n is below the minimum (then no estimates).', (r) => r.status),
   num('n', 'count', 'Return observations in the window (security and market both present).', (r) => r.n),
   num('minimum', 'count', 'Minimum observations the spec requires.', (r) => r.minimum),
-  text('first_period', `First period with an observation: ${periodLabel}.`, (r) => r.firstPeriod),
-  text('last_period', `Last period with an observation: ${periodLabel}.`, (r) => r.lastPeriod),
+  period('first_period', `First period with an observation: ${periodLabel}.`, (r) => r.firstPeriod),
+  period('last_period', `Last period with an observation: ${periodLabel}.`, (r) => r.lastPeriod),
   text('estimator', 'Base estimator: ols, dimson or scholes-williams.', (r) => r.estimator),
   num('beta', 'ratio', 'Beta of the base estimator (slope of security on market excess returns).', (r) => r.beta),
   num('beta_se', 'ratio', 'Standard error of beta.', (r) => r.betaSe),
