@@ -45,6 +45,30 @@ export function readNumberCell(cell: string): CellReading {
   return Number.isFinite(value) ? { kind: 'value', value } : { kind: 'not-finite' };
 }
 
+const EXACT_POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
+
+/**
+ * Plain `digits[.digits]` with at most 15 significant digits, as mantissa / 10^k: both operands are
+ * exact doubles and one IEEE division rounds correctly, so the result equals Number(text)
+ * (Clinger 1990, "How to Read Floating Point Numbers Accurately", the fast path). NaN otherwise.
+ */
+function plainDecimal(text: string): number {
+  let mantissa = 0;
+  let digits = 0;
+  let fraction = -1;
+  for (let i = 0; i < text.length; i++) {
+    const code = text.charCodeAt(i);
+    if (code >= 48 && code <= 57) {
+      mantissa = mantissa * 10 + (code - 48);
+      if (mantissa !== 0) digits++;
+      if (fraction !== -1) fraction++;
+    } else if (code === 46 && fraction === -1) fraction = 0;
+    else return Number.NaN;
+  }
+  if (digits > 15 || fraction > 22 || text.length === (fraction === -1 ? 0 : 1)) return Number.NaN;
+  return fraction > 0 ? mantissa / EXACT_POWERS_OF_TEN[fraction]! : mantissa;
+}
+
 /**
  * Fast path for price cells: the price, NaN for an empty cell, or -1 for anything that is not a
  * finite positive decimal number (the caller then asks readNumberCell why).
@@ -52,6 +76,7 @@ export function readNumberCell(cell: string): CellReading {
 export function fastPrice(cell: string): number {
   const text = trimPadding(cell);
   if (text.length === 0) return Number.NaN;
-  const value = hasDecimalShape(text) ? Number(text) : -1;
+  let value = plainDecimal(text);
+  if (Number.isNaN(value)) value = hasDecimalShape(text) ? Number(text) : -1;
   return value > 0 && value < Number.POSITIVE_INFINITY ? value : -1;
 }

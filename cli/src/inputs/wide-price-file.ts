@@ -13,22 +13,29 @@ import { InputError } from './input-error.js';
 import { fastPrice, trimPadding } from './number-cell.js';
 import type { DatedSeries, PriceFileContents, PriceFileOptions, WideLayout } from './price-file-options.js';
 
+/** Rows are stored row-major in blocks (sequential writes while streaming), then turned into columns. */
+const BLOCK_ROWS = 128;
+
 interface WideState {
   names: readonly string[];
   dateField: number;
   valueFields: Int32Array;
-  columns: Float64Array[];
+  blocks: Float64Array[];
   days: GrowableInt32;
   lines: GrowableInt32;
 }
 
-function growColumns(state: WideState): void {
-  const capacity = Math.max(256, state.days.data.length);
-  state.columns = state.columns.map((column) => {
-    const bigger = new Float64Array(capacity);
-    bigger.set(column);
-    return bigger;
+function toColumns(blocks: readonly Float64Array[], width: number, rows: number): Float64Array[] {
+  const columns = Array.from({ length: width }, () => new Float64Array(rows));
+  blocks.forEach((block, b) => {
+    const first = b * BLOCK_ROWS;
+    const count = Math.min(BLOCK_ROWS, rows - first);
+    for (let k = 0; k < width; k++) {
+      const column = columns[k]!;
+      for (let r = 0; r < count; r++) column[first + r] = block[r * width + k]!;
+    }
   });
+  return columns;
 }
 
 export interface WideColumns {
@@ -44,7 +51,7 @@ export interface WideColumns {
 async function readColumns(file: string, options: PriceFileOptions, layout: WideLayout): Promise<WideColumns> {
   const format = compileDateFormat(options.dateFormat);
   const state: WideState = {
-    names: [], dateField: 0, valueFields: new Int32Array(0), columns: [], days: growableInt32(), lines: growableInt32(),
+    names: [], dateField: 0, valueFields: new Int32Array(0), blocks: [], days: growableInt32(), lines: growableInt32(),
   };
   await visitCsv(file, options, {
     header(names) {
@@ -55,7 +62,6 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
         throw new InputError({ code: 'INPUT_NO_VALUE_COLUMN', file, line: 1, column: null, reason: 'the header has no security column' });
       }
       checkSecurityCodes(file, names, Array.from(state.valueFields));
-      state.columns = Array.from(state.valueFields, () => new Float64Array(256));
     },
     row(fields, line) {
       const place = (field: number): CellPlace => ({ file, line, field, columnName: state.names[field]! });
@@ -64,19 +70,22 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
       const row = state.days.length;
       pushInt32(state.days, day);
       pushInt32(state.lines, line);
-      if (state.columns[0] !== undefined && state.columns[0].length < state.days.data.length) growColumns(state);
-      for (let k = 0; k < state.valueFields.length; k++) {
+      const width = state.valueFields.length;
+      if (row % BLOCK_ROWS === 0) state.blocks.push(new Float64Array(BLOCK_ROWS * width));
+      const block = state.blocks[state.blocks.length - 1]!;
+      const offset = (row % BLOCK_ROWS) * width;
+      for (let k = 0; k < width; k++) {
         const field = state.valueFields[k]!;
         const price = fastPrice(fields[field]!);
         if (price === -1) throw badPrice(place(field), fields[field]!);
-        state.columns[k]![row] = price;
+        block[offset + k] = price;
       }
     },
   });
   const rows = state.days.length;
   return {
     names: state.names, dateField: state.dateField, valueFields: state.valueFields,
-    columns: state.columns.map((column) => column.slice(0, rows)),
+    columns: toColumns(state.blocks, state.valueFields.length, rows),
     days: trimmedInt32(state.days), lines: trimmedInt32(state.lines),
   };
 }
