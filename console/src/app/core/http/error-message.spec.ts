@@ -25,6 +25,20 @@ describe('errorMessage', () => {
     expect(errorMessage(error)).toBe('The server answered 502 Bad Gateway.');
   });
 
+  // Angular's HttpClient reports an unparsable JSON body as an HttpErrorResponse that keeps the 2xx
+  // status, with `error: { error, text }` [memory].
+  it('says the answer could not be read when a successful status carries a body that is not JSON', () => {
+    const error = new HttpErrorResponse({
+      status: 200,
+      statusText: 'OK',
+      error: { error: new SyntaxError('Unexpected token <'), text: '<!doctype html>' },
+    });
+
+    expect(errorMessage(error)).toBe(
+      'The server’s answer could not be read. Is /api served by the Clinometer server?',
+    );
+  });
+
   it('gives a general sentence for an error that did not come from HTTP', () => {
     expect(errorMessage(new Error('boom'))).toBe('Something went wrong. Please try again.');
   });

@@ -29,6 +29,10 @@ export function errorMessage(error: unknown): string {
   if (error.status === 0) {
     return 'The Clinometer server cannot be reached. Check the connection and try again.';
   }
+  if (error.status >= 200 && error.status < 300) {
+    // HttpClient reports a body it could not parse as JSON as an error carrying the 2xx status.
+    return 'The server’s answer could not be read. Is /api served by the Clinometer server?';
+  }
   if (isErrorEnvelope(error.error)) {
     return error.error.error.message;
   }
