@@ -50,11 +50,15 @@ function issue(ctx: Issues, path: (string | number)[], message: string, input: u
 
 function checkWindows(spec: ParsedShape, ctx: Issues): void {
   const { window, minimum } = resolveWindow(spec.sampling);
-  if (minimum > window) issue(ctx, ['sampling', 'minimum'], `${minimum} is more than the window (${window}); allowed: at most the window`, minimum);
   const length = spec.estimation.rolling.length ?? window;
-  if (length < minimum) {
+  if (minimum > window) {
+    issue(ctx, ['sampling', 'minimum'], `${minimum} is more than the window (${window}); allowed: at most the window`, minimum);
+  } else if (length < minimum) {
     issue(ctx, ['estimation', 'rolling', 'length'], `${length} is less than the minimum (${minimum}); allowed: at least the minimum`, length);
   }
+}
+
+function checkGroups(spec: ParsedShape, ctx: Issues): void {
   if (spec.estimation.vasicek.priorScope === 'group' && spec.groups === undefined) {
     issue(ctx, ['estimation', 'vasicek', 'priorScope'], 'group needs the groups section; allowed: run, or add groups', 'group');
   }
@@ -113,6 +117,7 @@ function checkReport(spec: ParsedShape, ctx: Issues): void {
 
 export const runSpecSchema = runSpecShape.superRefine((spec, ctx) => {
   checkWindows(spec, ctx);
+  checkGroups(spec, ctx);
   checkColumns(spec, ctx);
   checkPricing(spec, ctx);
   checkPeerGroups(spec, ctx);

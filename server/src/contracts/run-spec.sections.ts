@@ -3,8 +3,8 @@ import type { Frequency } from '../../../cli/src/engine/types.js';
 import { RESULT_COLUMN_NAMES } from './result-columns.js';
 import {
   allowedError,
-  calendarDate,
   debtToEquity,
+  isCalendarDate,
   label,
   rate,
   securityCode,
@@ -23,6 +23,7 @@ export const WINDOW_DEFAULTS: Readonly<Record<Frequency, { readonly window: numb
 };
 
 const MAX_PERIODS = 10_000;
+const AS_OF_ALLOWED = 'a calendar date YYYY-MM-DD, or latest';
 
 export const samplingSchema = z
   .strictObject({
@@ -38,7 +39,8 @@ export const samplingSchema = z
       .optional()
       .describe('Fewest observations for an estimate; below it a security is insufficient. Default by frequency: monthly 36, weekly 104, daily 200, never more than the window.'),
     asOf: z
-      .union([calendarDate, z.literal('latest')], allowedError('a calendar date YYYY-MM-DD, or latest'))
+      .string(allowedError(AS_OF_ALLOWED))
+      .refine((text) => text === 'latest' || isCalendarDate(text), allowedError(AS_OF_ALLOWED))
       .default('latest')
       .describe('The as-of date (YYYY-MM-DD): the window ends in the period containing it; latest means the market\'s last date.'),
     returns: z.enum(['simple', 'log']).default('simple').describe('simple returns, or log returns (then excess = ln(1 + r) − ln(1 + r_f)).'),
