@@ -16,7 +16,6 @@ export async function locateByte(file: string, offset: number, delimiter: string
   let line = 1;
   let column = 1;
   let quoted = false;
-  let position = 0;
   const stream = offset > 0 ? createReadStream(file, { start: 0, end: offset - 1 }) : null;
   for await (const chunk of stream ?? []) {
     for (const byte of chunk as Buffer) {
@@ -26,8 +25,7 @@ export async function locateByte(file: string, offset: number, delimiter: string
         column = 1;
       } else if (byte === NEWLINE) line++;
       else if (byte === delimiterByte && !quoted) column++;
-      position++;
     }
   }
-  return { line, column: position === offset ? column : 1 };
+  return { line, column };
 }
