@@ -1,6 +1,7 @@
 import type { Request } from 'express';
 import type { Transaction } from 'sequelize';
 import type { Principal } from '../auth/principal.js';
+import { AppError } from '../shared/errors.js';
 import { AuditEvent, type ActorKind } from './audit-event.model.js';
 
 /** Who did it: the calling principal, or the system itself (the demo seed, a scheduled step). */
@@ -54,4 +55,16 @@ export async function recordAudit(transaction: Transaction, entry: AuditEntry): 
 export function requestIdOf(req: Request): string | null {
   const id = req.res?.getHeader('x-request-id');
   return typeof id === 'string' ? id : null;
+}
+
+/** Who acts and under which request: what a route hands to a service that audits. */
+export interface AuditContext {
+  actor: AuditActor;
+  requestId: string | null;
+}
+
+/** The audit context of a request that passed `requireRole()` (so it has a principal). */
+export function auditContextOf(req: Request): AuditContext {
+  if (!req.principal) throw new AppError(401, 'UNAUTHENTICATED', 'Sign in first');
+  return { actor: req.principal, requestId: requestIdOf(req) };
 }
