@@ -15,8 +15,14 @@ import type { Adjustment, ResultFlag, SecurityResult, VasicekPrior } from './typ
 export const DEFAULT_BLUME_WEIGHT = 2 / 3;
 export const MINIMUM_VASICEK_PEERS = 3;
 
+/** intercept + slope·β: the form of a fitted cross-period regression of betas on their past values. */
+export function linearAdjustment(beta: number, intercept: number, slope: number): number {
+  return intercept + slope * beta;
+}
+
+/** w·β + (1 − w)·1. */
 export function blumeBeta(beta: number, weight: number = DEFAULT_BLUME_WEIGHT): number {
-  return weight * beta + (1 - weight) * 1;
+  return linearAdjustment(beta, 1 - weight, weight);
 }
 
 export interface VasicekPriorStats {
