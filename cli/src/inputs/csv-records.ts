@@ -1,7 +1,8 @@
 // Streams a CSV file record by record with the physical line each record starts on. Strict per
 // INPUT-RULES.md: UTF-8 (BOM skipped), CRLF or LF, RFC 4180 quoting, every row as many fields as the
 // header, blank lines only at the end. Records are handed to the visitor as they are parsed, so a
-// large file is never held in memory as text or as rows.
+// large file is never held in memory as text or as rows. Line numbers are physical lines: a record
+// starts on the line after the previous one ended, and spans one line plus its quoted line breaks.
 import { createReadStream } from 'node:fs';
 import { pipeline } from 'node:stream/promises';
 import { CsvError, parse } from 'csv-parse';
@@ -28,14 +29,28 @@ function isBlank(fields: readonly string[]): boolean {
 
 interface RecordTracker {
   headerLength: number;
+  /** Physical line where the previous record ended. */
   lastEndLine: number;
+  /** csv-parse's line count at the previous record's end (it counts CRLF inside quotes as two lines). */
+  lastParserLines: number;
   pendingBlankLine: number;
   rows: number;
 }
 
+/** Line breaks inside a record's fields: a CRLF or a lone LF counts once. */
+function breaksInside(fields: readonly string[]): number {
+  let breaks = 0;
+  for (const field of fields) {
+    for (let at = field.indexOf('\n'); at !== -1; at = field.indexOf('\n', at + 1)) breaks++;
+  }
+  return breaks;
+}
+
 function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, fields: string[], info: Info): void {
   const line = state.lastEndLine + 1;
-  state.lastEndLine = info.lines;
+  const spansLines = info.lines - state.lastParserLines > 1;
+  state.lastEndLine = spansLines ? line + breaksInside(fields) : line;
+  state.lastParserLines = info.lines;
   if (isBlank(fields)) {
     if (state.pendingBlankLine === 0) state.pendingBlankLine = line;
     return;
@@ -60,7 +75,8 @@ function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, f
 
 function csvProblem(file: string, error: CsvError, state: RecordTracker): InputError {
   const unclosed = error.code === 'CSV_QUOTE_NOT_CLOSED';
-  const line = unclosed ? state.lastEndLine + 1 : Number(error['lines'] ?? state.lastEndLine + 1);
+  const linesIntoRecord = Math.max(0, Number(error['lines'] ?? 0) - state.lastParserLines - 1);
+  const line = state.lastEndLine + 1 + (unclosed ? 0 : linesIntoRecord);
   const column = Number(error['column'] ?? 0) + 1;
   const reason = unclosed ? 'a quoted field is never closed' : 'a quote is misplaced (RFC 4180: quotes enclose a whole field)';
   return new InputError({ code: 'INPUT_NOT_CSV', file, line, column, reason });
@@ -78,9 +94,17 @@ function unreadable(file: string, error: NodeJS.ErrnoException): InputError {
   return new InputError({ code: 'INPUT_UNREADABLE', file, line: null, column: null, reason: `cannot read the file (${error.code ?? error.message})` });
 }
 
+/** One character that is not a quote, a line break or a letter-or-digit; throws RangeError otherwise. */
+export function checkDelimiter(delimiter: string): void {
+  if (delimiter.length !== 1 || /["\r\n\p{L}\p{N}]/u.test(delimiter)) {
+    throw new RangeError(`the delimiter must be one character other than a quote, a line break, a letter or a digit, got ${JSON.stringify(delimiter)}`);
+  }
+}
+
 /** Reads `file`, calling the visitor for the header and each data row, or throws an InputError. */
 export async function visitCsv(file: string, dialect: CsvDialect, visitor: CsvVisitor): Promise<void> {
-  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, pendingBlankLine: 0, rows: 0 };
+  checkDelimiter(dialect.delimiter);
+  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, lastParserLines: 0, pendingBlankLine: 0, rows: 0 };
   const parser = parse({
     bom: true,
     delimiter: dialect.delimiter,

@@ -90,16 +90,18 @@ export async function readLongPriceFile(
   const { fields, bySecurity } = await readRows(file, options, layout);
   const iso = isoInterner();
   const series: DatedSeries[] = [];
+  let earliest: InputError | null = null;
   for (const [id, rows] of bySecurity) {
     const days = trimmedInt32(rows.days);
     const order = ascendingOrder(days);
     const repeat = findRepeatedDate(days, order);
-    if (repeat !== null) {
+    if (repeat !== null && (earliest === null || rows.lines.data[repeat.repeat]! < earliest.line!)) {
       const place = { file, line: rows.lines.data[repeat.repeat]!, field: fields.date, columnName: fields.names[fields.date]! };
-      throw repeatedDate(place, iso(days[repeat.repeat]!), rows.lines.data[repeat.first]!, ` for security ${excerpt(id)}`);
+      earliest = repeatedDate(place, iso(days[repeat.repeat]!), rows.lines.data[repeat.first]!, ` for security ${excerpt(id)}`);
     }
     const sortedDays = permuteInt32(days, order);
     series.push({ id, days: sortedDays, dates: Array.from(sortedDays, iso), prices: permuteFloat64(trimmedFloat64(rows.prices), order) });
   }
+  if (earliest !== null) throw earliest;
   return { series, header: fields.names };
 }

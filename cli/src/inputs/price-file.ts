@@ -1,5 +1,13 @@
 // Entry point for price files in either layout. When the market's levels are in the price file
 // (a column in the wide layout, a code in the long one) they are split off as the market series.
+//
+// Decisions DESIGN.md leaves open (full list in INPUT-RULES.md):
+// - Unsorted dates are accepted and sorted ascending (vendor files are sometimes newest first); a
+//   repeated date, or security and date in the long layout, is refused at its later line.
+// - Padded fields are accepted: spaces and tabs around dates, codes, header names and numbers are
+//   trimmed after unquoting; an all-space cell is empty (missing). Other Unicode spaces are not.
+// - Blank lines are fine only at the end of a file; one between rows is a field-count error.
+// - Columns are found by exact (trimmed, case-sensitive) header name, in any position.
 import { excerpt, InputError } from './input-error.js';
 import { readLongPriceFile } from './long-price-file.js';
 import { assertMarketVaries } from './market-series.js';

@@ -10,7 +10,8 @@ import { readNumberCell, trimPadding } from './number-cell.js';
 export type YieldUnit = 'percent' | 'decimal';
 
 export interface RiskFreeFileOptions extends DatedValueOptions {
-  readonly unit: YieldUnit;
+  /** Default 'percent' (DESIGN.md "Units"). */
+  readonly unit?: YieldUnit;
 }
 
 function badRate(place: CellPlace, cell: string, problem: string): InputError {
@@ -32,7 +33,7 @@ export function parseYieldCell(cell: string, place: CellPlace, unit: YieldUnit):
 }
 
 export async function readRiskFreeFile(file: string, options: RiskFreeFileOptions): Promise<YieldSeries> {
-  const read = await readDatedValues(file, options, (cell, place) => parseYieldCell(cell, place, options.unit));
+  const read = await readDatedValues(file, options, (cell, place) => parseYieldCell(cell, place, options.unit ?? 'percent'));
   return { days: read.days, yields: read.values };
 }
 
