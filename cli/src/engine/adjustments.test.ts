@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { applyVasicek, blumeBeta, linearAdjustment, vasicekPrior, vasicekShrink } from './adjustments.js';
+import { securityResult } from './test-support/security-result.js';
 import type { SecurityResult } from './types.js';
 
 describe('Blume adjustment', () => {
@@ -47,9 +48,8 @@ describe('Vasicek shrinkage', () => {
 });
 
 describe('applyVasicek across a run', () => {
-  const result = (id: string, beta: number, betaSe: number, status: SecurityResult['status'] = 'ok'): SecurityResult => ({
-    id, status, beta, betaSe, flags: [], adjustedBeta: NaN, vasicekBeta: NaN,
-  } as unknown as SecurityResult);
+  const result = (id: string, beta: number, betaSe: number, status: SecurityResult['status'] = 'ok') =>
+    securityResult({ id, status, beta, betaSe });
   const run = [result('A1', 0.6, 0.2), result('A2', 1.0, 0.2), result('A3', 1.1, 0.2), result('A4', 1.7, 0.2), result('B1', 1.4, 0.3), result('B2', 0.8, 0.3), result('C1', NaN, NaN, 'insufficient')];
 
   it('shrinks every ok beta toward the whole run\'s prior when no groups are named', () => {
