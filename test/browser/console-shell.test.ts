@@ -31,7 +31,14 @@ describe('the built console in Chromium', () => {
     });
     await page.goto(`${server.baseUrl}/`);
     await page.getByTestId('shell-title').waitFor();
-    await page.evaluate(() => document.fonts.ready);
+    // Fonts load when first used; the icon font only once the lazy area page has drawn its icons.
+    await page
+      .waitForFunction(
+        (families) => families.every((family) => [...document.fonts].some((f) => f.family.replace(/"/g, '') === family && f.status === 'loaded')),
+        ['Fira Sans', 'Material Symbols Outlined'],
+        { timeout: 15_000 },
+      )
+      .catch(() => undefined); // the assertions below say which font is missing
     fonts = await page.evaluate(() => [...document.fonts].map((f) => ({ family: f.family.replace(/"/g, ''), status: f.status })));
   });
 
