@@ -6,7 +6,7 @@ import type { MigrationContext } from '../migrator.js';
 export const up: MigrationFn<MigrationContext> = async ({ context: { queryInterface } }) => {
   await queryInterface.createTable('users', {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-    user_name: { type: DataTypes.STRING(64), allowNull: false, unique: 'users_user_name_unique' },
+    user_name: { type: DataTypes.STRING(64), allowNull: false },
     display_name: { type: DataTypes.STRING(200), allowNull: false },
     email: { type: DataTypes.STRING(254), allowNull: false },
     role: { type: DataTypes.ENUM('ops', 'analyst', 'supervisor', 'admin', 'viewer'), allowNull: false },

@@ -10,7 +10,7 @@ export const up: MigrationFn<MigrationContext> = async ({ context: { queryInterf
   await queryInterface.createTable('machine_tokens', {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
     name: { type: DataTypes.STRING(100), allowNull: false },
-    token_sha256: { type: DataTypes.CHAR(64), allowNull: false, unique: 'machine_tokens_token_sha256_unique' },
+    token_sha256: { type: DataTypes.CHAR(64), allowNull: false },
     created_by_user_id: {
       type: DataTypes.INTEGER,
       allowNull: true,

@@ -5,6 +5,7 @@ import * as m0002 from './0002-users.js';
 import * as m0003 from './0003-machine-tokens.js';
 import * as m0004 from './0004-sessions.js';
 import * as m0005 from './0005-audit-events.js';
+import * as m0006 from './0006-unique-user-names-and-token-hashes.js';
 import * as m0010 from './0010-jobs.js';
 import * as m0011 from './0011-specs.js';
 import * as m0012 from './0012-runs.js';
@@ -26,6 +27,7 @@ export const migrations: readonly { name: string; module: MigrationModule }[] = 
   { name: '0003-machine-tokens', module: m0003 },
   { name: '0004-sessions', module: m0004 },
   { name: '0005-audit-events', module: m0005 },
+  { name: '0006-unique-user-names-and-token-hashes', module: m0006 },
   { name: '0010-jobs', module: m0010 },
   { name: '0011-specs', module: m0011 },
   { name: '0012-runs', module: m0012 },
