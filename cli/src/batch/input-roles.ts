@@ -1,6 +1,7 @@
 // Which given file is the price file, the market file and the risk-free file of a run. Explicit
 // choices win; then each file goes to the role whose spec pattern its name matches; files that
-// match no pattern fill the roles still open in the order prices, market, risk-free.
+// match no pattern fill the roles still open in the order prices, market, risk-free; files left
+// over are not read (the command says so on stderr).
 import path from 'node:path';
 import picomatch from 'picomatch';
 import type { ResolvedRunSpec } from '../../../server/src/contracts/run-spec.schema.js';
@@ -14,6 +15,12 @@ export interface RunInputPaths {
   readonly market?: string;
   /** Only when the spec's risk-free rate comes from a file. */
   readonly riskFree?: string;
+}
+
+export interface AssignedInputs {
+  readonly paths: RunInputPaths;
+  /** Files given that the spec does not read (every role was already filled). */
+  readonly ignored: readonly string[];
 }
 
 const ROLE_NAMES: Readonly<Record<InputRole, string>> = { prices: 'price file', market: 'market file', riskFree: 'risk-free file' };
@@ -35,7 +42,7 @@ export function assignInputRoles(
   spec: ResolvedRunSpec,
   files: readonly string[],
   explicit: Partial<Record<InputRole, string>> = {},
-): RunInputPaths {
+): AssignedInputs {
   const roles = neededRoles(spec);
   const chosen = new Map<InputRole, string>();
   for (const { role } of roles) if (explicit[role] !== undefined) chosen.set(role, explicit[role]);
@@ -46,13 +53,10 @@ export function assignInputRoles(
     else chosen.set(match.role, file);
   }
   for (const { role } of roles) if (!chosen.has(role) && rest.length > 0) chosen.set(role, rest.shift()!);
-  if (rest.length > 0) {
-    throw new CliError('USAGE', `more input files than the spec reads: ${rest.map((file) => path.basename(file)).join(', ')}`);
-  }
   const missing = roles.filter(({ role }) => !chosen.has(role));
   if (missing.length > 0) {
     const list = missing.map(({ role, pattern }) => `the ${ROLE_NAMES[role]} (pattern ${pattern})`).join(', ');
     throw new CliError('INPUT_MISSING', `the spec needs ${list}`, { hint: 'name the files after the spec, e.g. clino run spec.yaml prices.csv index.csv rates.csv' });
   }
-  return { prices: chosen.get('prices')!, market: chosen.get('market'), riskFree: chosen.get('riskFree') };
+  return { paths: { prices: chosen.get('prices')!, market: chosen.get('market'), riskFree: chosen.get('riskFree') }, ignored: rest };
 }

@@ -2,7 +2,7 @@
 // computing. Prints what it found; every problem is reported as file:line:column with its reason.
 import path from 'node:path';
 import { Command } from 'commander';
-import { assignInputRoles } from '../batch/input-roles.js';
+import { assignInputRoles, type RunInputPaths } from '../batch/input-roles.js';
 import { readRunInputs, type RunInputData } from '../batch/read-run-inputs.js';
 import { readSpecFile } from '../batch/spec-file.js';
 import { openContext, type CommandDeps } from '../command-context.js';
@@ -30,7 +30,7 @@ function dateRange(series: readonly DatedSeries[]): { firstDate: string | null; 
   return { firstDate: firsts[0] ?? null, lastDate: lasts.at(-1) ?? null };
 }
 
-function inputReport(paths: ReturnType<typeof assignInputRoles>, data: RunInputData): NonNullable<CheckReport['inputs']> {
+function inputReport(paths: RunInputPaths, data: RunInputData): NonNullable<CheckReport['inputs']> {
   const base = (file: string | undefined): string | null => (file === undefined ? null : path.basename(file));
   return {
     prices: { file: path.basename(paths.prices), securities: data.securities.length, ...dateRange(data.securities) },
@@ -70,7 +70,8 @@ export function checkCommand(deps: CommandDeps): Command {
       let report: CheckReport = { spec: { file: specFile, name: spec.name, sha256 }, inputs: null };
       const explicit = { prices: options.prices, market: options.market, riskFree: options.riskFree };
       if (inputs.length > 0 || Object.values(explicit).some((value) => value !== undefined)) {
-        const paths = assignInputRoles(spec, inputs, explicit);
+        const { paths, ignored } = assignInputRoles(spec, inputs, explicit);
+        if (ignored.length > 0) context.logger.warn({ ignored }, 'files the spec does not read were ignored');
         report = { ...report, inputs: inputReport(paths, await readRunInputs(spec, paths)) };
       }
       context.logger.debug({ spec: spec.name }, 'check passed');

@@ -36,7 +36,8 @@ export function runCommand(deps: CommandDeps): Command {
     .action(async (specFile: string, inputs: string[], options: RunOptions, command: Command) => {
       const context = await openContext(deps, command.optsWithGlobals());
       const { spec, sha256 } = await readSpecFile(specFile);
-      const paths = assignInputRoles(spec, inputs, { prices: options.prices, market: options.market, riskFree: options.riskFree });
+      const { paths, ignored } = assignInputRoles(spec, inputs, { prices: options.prices, market: options.market, riskFree: options.riskFree });
+      if (ignored.length > 0) context.logger.warn({ ignored }, 'files the spec does not read were ignored');
       context.logger.debug({ spec: spec.name, paths }, 'inputs assigned');
       const run = await computeRun(spec, paths, {
         asOf: options.asOf,
