@@ -1,12 +1,13 @@
 // Streams a CSV file record by record with the physical line each record starts on. Strict per
 // INPUT-RULES.md: UTF-8 (BOM skipped), CRLF or LF, RFC 4180 quoting, every row as many fields as the
 // header, blank lines only at the end. Records are handed to the visitor as they are parsed, so a
-// large file is never held in memory as text or as rows. Line numbers are physical lines: a record
-// starts on the line after the previous one ended, and spans one line plus its quoted line breaks.
+// large file is never held in memory as text or as rows. Line numbers are physical lines counted
+// here (csv-parse counts a CRLF inside quotes as two): a record starts on the line after the
+// previous one ended and spans one line plus the line breaks inside its quoted fields.
 import { createReadStream } from 'node:fs';
+import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { CsvError, parse } from 'csv-parse';
-import type { Info } from 'csv-parse';
 import { InputError } from './input-error.js';
 import { ByteFault, createUtf8Guard } from './utf8-guard.js';
 import { locateByte } from './byte-location.js';
@@ -31,8 +32,6 @@ interface RecordTracker {
   headerLength: number;
   /** Physical line where the previous record ended. */
   lastEndLine: number;
-  /** csv-parse's line count at the previous record's end (it counts CRLF inside quotes as two lines). */
-  lastParserLines: number;
   pendingBlankLine: number;
   rows: number;
 }
@@ -46,11 +45,9 @@ function breaksInside(fields: readonly string[]): number {
   return breaks;
 }
 
-function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, fields: string[], info: Info): void {
+function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, fields: string[]): void {
   const line = state.lastEndLine + 1;
-  const spansLines = info.lines - state.lastParserLines > 1;
-  state.lastEndLine = spansLines ? line + breaksInside(fields) : line;
-  state.lastParserLines = info.lines;
+  state.lastEndLine = line + breaksInside(fields);
   if (isBlank(fields)) {
     if (state.pendingBlankLine === 0) state.pendingBlankLine = line;
     return;
@@ -75,8 +72,7 @@ function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, f
 
 function csvProblem(file: string, error: CsvError, state: RecordTracker): InputError {
   const unclosed = error.code === 'CSV_QUOTE_NOT_CLOSED';
-  const linesIntoRecord = Math.max(0, Number(error['lines'] ?? 0) - state.lastParserLines - 1);
-  const line = state.lastEndLine + 1 + (unclosed ? 0 : linesIntoRecord);
+  const line = state.lastEndLine + 1;
   const column = Number(error['column'] ?? 0) + 1;
   const reason = unclosed ? 'a quoted field is never closed' : 'a quote is misplaced (RFC 4180: quotes enclose a whole field)';
   return new InputError({ code: 'INPUT_NOT_CSV', file, line, column, reason });
@@ -104,18 +100,22 @@ export function checkDelimiter(delimiter: string): void {
 /** Reads `file`, calling the visitor for the header and each data row, or throws an InputError. */
 export async function visitCsv(file: string, dialect: CsvDialect, visitor: CsvVisitor): Promise<void> {
   checkDelimiter(dialect.delimiter);
-  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, lastParserLines: 0, pendingBlankLine: 0, rows: 0 };
-  const parser = parse({
-    bom: true,
-    delimiter: dialect.delimiter,
-    relax_column_count: true,
-    on_record: (fields: string[], info: Info) => {
-      handleRecord(file, visitor, state, fields, info);
-      return undefined;
+  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, pendingBlankLine: 0, rows: 0 };
+  const parser = parse({ bom: true, delimiter: dialect.delimiter, relax_column_count: true });
+  const sink = new Writable({
+    objectMode: true,
+    highWaterMark: 1024,
+    write(fields: string[], _encoding, callback) {
+      try {
+        handleRecord(file, visitor, state, fields);
+        callback();
+      } catch (error) {
+        callback(error as Error);
+      }
     },
   });
   try {
-    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), parser);
+    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), parser, sink);
   } catch (error) {
     if (error instanceof InputError) throw error;
     if (error instanceof ByteFault) throw await byteProblem(file, error, dialect);
