@@ -1,7 +1,6 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { logGamma } from './log-gamma.js';
-import { studentTDensity, studentTQuantile, studentTTwoSidedP, studentTUpperTail } from './student-t.js';
+import { studentTQuantile, studentTTwoSidedP, studentTUpperTail } from './student-t.js';
 
 const relative = (got: number, expected: number) => Math.abs(got / expected - 1);
 
@@ -64,23 +63,5 @@ describe('studentTQuantile', () => {
       expect(relative(studentTUpperTail(q, df), 0.025)).toBeLessThan(1e-13);
       expect(relative(-studentTQuantile(0.025, df), q)).toBeLessThan(1e-14); // 1 − 0.975 is not exactly 0.025 in doubles
     }
-  });
-});
-
-describe('log-gamma and density', () => {
-  it('matches ln((n − 1)!) and ln Γ(½) = ½ ln π [arithmetic]', () => {
-    let logFactorial = 0;
-    for (let n = 2; n <= 170; n += 1) {
-      logFactorial += Math.log(n - 1);
-      expect(Math.abs(logGamma(n) - logFactorial)).toBeLessThan(1e-13 * Math.max(1, logFactorial));
-    }
-    expect(logGamma(0.5)).toBeCloseTo(0.5 * Math.log(Math.PI), 15);
-  });
-
-  it('integrates the density to the tail probability (Simpson rule on [0, 2], ν = 9)', () => {
-    const steps = 2000, h = 2 / steps;
-    let sum = studentTDensity(0, 9) + studentTDensity(2, 9);
-    for (let i = 1; i < steps; i += 1) sum += (i % 2 === 1 ? 4 : 2) * studentTDensity(i * h, 9);
-    expect((sum * h) / 3).toBeCloseTo(0.5 - studentTUpperTail(2, 9), 12);
   });
 });
