@@ -1,0 +1,11 @@
+// `node --import tsx server/src/auth/render-role-matrix.ts`: writes docs/roles.md from the role matrix.
+import { writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { projectRoot } from '../config.js';
+import { roleMatrix } from './role-matrix.js';
+import { renderRoleMatrixDoc } from './role-matrix-doc.js';
+
+export const ROLES_DOC = path.join(projectRoot, 'docs/roles.md');
+
+writeFileSync(ROLES_DOC, renderRoleMatrixDoc(roleMatrix));
+process.stderr.write(`wrote ${path.relative(projectRoot, ROLES_DOC)}\n`);

@@ -1,0 +1,48 @@
+import { ROLES } from './principal.js';
+import type { Grantee } from './role-matrix.js';
+
+const COLUMNS: readonly Grantee[] = [...ROLES, 'machine'];
+
+const WHO: Record<(typeof COLUMNS)[number], string> = {
+  ops: 'ops engineer: schedules scripted runs, watches failures, holds machine tokens on the hosts',
+  analyst: 'analyst: writes and dry-runs run specs, explains results',
+  supervisor: 'supervisor: inspects runs, reruns failures, releases reports (never a run of a spec revision they authored)',
+  admin: 'admin: people, roles, machine tokens, distribution lists',
+  viewer: 'viewer: reads',
+  machine: 'machine: the clino CLI with a bearer machine token (`Authorization: Bearer <token>`)',
+};
+
+/** The area of a route: its first path segment after /api (`runs`, `people`, ...). */
+function areaOf(route: string): string {
+  return /^\S+ \/api\/([^/]+)/.exec(route)?.[1] ?? 'other';
+}
+
+function row(route: string, grantees: readonly Grantee[]): string {
+  const open = grantees.includes('public');
+  const cells = COLUMNS.map((c) => (open || grantees.includes(c) ? 'yes' : '-'));
+  return `| \`${route}\`${open ? ' (public)' : ''} | ${cells.join(' | ')} |`;
+}
+
+/** docs/roles.md, rendered from the role matrix: one table per area, in the order the matrix lists them. */
+export function renderRoleMatrixDoc(matrix: Readonly<Record<string, readonly Grantee[]>>): string {
+  const areas = new Map<string, string[]>();
+  for (const route of Object.keys(matrix)) areas.set(areaOf(route), [...(areas.get(areaOf(route)) ?? []), route]);
+  const lines = [
+    '# Roles: who may call which API route',
+    '',
+    '<!-- Rendered from server/src/auth/role-matrix.yaml; do not edit by hand. -->',
+    'Rendered from `server/src/auth/role-matrix.yaml` (the one source of truth, enforced by `requireRole()`)',
+    'with `node --import tsx server/src/auth/render-role-matrix.ts`; a test fails when this page is out of date.',
+    '',
+    ...COLUMNS.map((c) => `- **${WHO[c].split(':')[0]}**:${WHO[c].slice(WHO[c].indexOf(':') + 1)}`),
+    '- **public**: no sign-in needed (a machine token is still checked when one is sent).',
+    '',
+    'A person signed in with a role that is not listed gets 403 `FORBIDDEN`; a caller who is not signed in gets',
+    '401 `UNAUTHENTICATED`. Writes by a signed-in person also need the `X-XSRF-TOKEN` header (403 `CSRF_REJECTED`).',
+  ];
+  for (const [area, routes] of areas) {
+    lines.push('', `## ${area}`, '', `| route | ${COLUMNS.join(' | ')} |`, `| --- | ${COLUMNS.map(() => ':-:').join(' | ')} |`);
+    for (const route of routes) lines.push(row(route, matrix[route] ?? []));
+  }
+  return `${lines.join('\n')}\n`;
+}
