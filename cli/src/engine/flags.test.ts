@@ -9,13 +9,13 @@ describe('resultFlags', () => {
     expect(resultFlags(securityResult({ id: 'QZ1', n: 60, rSquared: 0.4, zeroReturnShare: 0.02, rollingBetaRange: 0.2 }), context)).toEqual([]);
   });
 
-  it('flags thin data below 90% of the window by default (54 of 60)', () => {
-    expect(resultFlags(securityResult({ id: 'QZ1', n: 53 }), context)).toEqual(['thin-data']);
-    expect(resultFlags(securityResult({ id: 'QZ1', n: 54 }), context)).toEqual([]);
+  it('flags thin data below 80% of the window by default (48 of 60), the run spec\'s default', () => {
+    expect(resultFlags(securityResult({ id: 'QZ1', n: 47 }), context)).toEqual(['thin-data']);
+    expect(resultFlags(securityResult({ id: 'QZ1', n: 48 }), context)).toEqual([]);
   });
 
   it('flags low fit, stale prices and instability at their thresholds', () => {
-    const result = securityResult({ id: 'QZ1', rSquared: 0.049, zeroReturnShare: 0.21, rollingBetaRange: 0.51 });
+    const result = securityResult({ id: 'QZ1', rSquared: 0.099, zeroReturnShare: 0.21, rollingBetaRange: 0.51 });
     expect(resultFlags(result, context)).toEqual(['low-fit', 'stale-prices', 'unstable']);
   });
 

@@ -2,8 +2,8 @@
 //
 // | flag           | raised when                                              | default        |
 // | -------------- | -------------------------------------------------------- | -------------- |
-// | `thin-data`    | n < share × W (window length in return periods)          | share 0.9      |
-// | `low-fit`      | R² of the base estimate < threshold                      | 0.05           |
+// | `thin-data`    | n < share × W (window length in return periods)          | share 0.8      |
+// | `low-fit`      | R² of the base estimate < threshold                      | 0.1            |
 // | `stale-prices` | share of zero security returns in the window > threshold | 0.2            |
 // | `unstable`     | max − min of the rolling betas > threshold               | 0.5            |
 // | `big-move`     | |adjusted beta − prior value| > threshold                | 0.25           |
@@ -27,8 +27,8 @@ export interface FlagThresholds {
 }
 
 export const DEFAULT_FLAG_THRESHOLDS: FlagThresholds = {
-  thinDataShare: 0.9,
-  lowFitRSquared: 0.05,
+  thinDataShare: 0.8,
+  lowFitRSquared: 0.1,
   stalePriceShare: 0.2,
   unstableRange: 0.5,
   bigMoveChange: 0.25,
