@@ -1,7 +1,7 @@
 import { ROLES } from './principal.js';
 import type { Grantee } from './role-matrix.js';
 
-const COLUMNS: readonly Grantee[] = [...ROLES, 'machine'];
+const COLUMNS = [...ROLES, 'machine'] as const satisfies readonly Grantee[];
 
 const WHO: Record<(typeof COLUMNS)[number], string> = {
   ops: 'ops engineer: schedules scripted runs, watches failures, holds machine tokens on the hosts',
