@@ -23,8 +23,30 @@ function row(route: string, grantees: readonly Grantee[]): string {
   return `| \`${route}\`${open ? ' (public)' : ''} | ${cells.join(' | ')} |`;
 }
 
+/** A demo account, listed at the end of the page (the demo seed creates them). */
+export interface DemoAccount {
+  userName: string;
+  role: string;
+  password: string;
+}
+
+function demoSection(accounts: readonly DemoAccount[]): string[] {
+  if (accounts.length === 0) return [];
+  return [
+    '',
+    '## Demo sign-ins',
+    '',
+    'Created by the demo seed (`npm start`) for invented people; demo passwords, never for a real installation.',
+    'The demo watcher\'s machine token (`demo-watcher`) takes its value from `CLINO_DEMO_MACHINE_TOKEN` when set.',
+    '',
+    '| user name | role | password |',
+    '| --- | --- | --- |',
+    ...accounts.map((a) => `| \`${a.userName}\` | ${a.role} | \`${a.password}\` |`),
+  ];
+}
+
 /** docs/roles.md, rendered from the role matrix: one table per area, in the order the matrix lists them. */
-export function renderRoleMatrixDoc(matrix: Readonly<Record<string, readonly Grantee[]>>): string {
+export function renderRoleMatrixDoc(matrix: Readonly<Record<string, readonly Grantee[]>>, demoAccounts: readonly DemoAccount[] = []): string {
   const areas = new Map<string, string[]>();
   for (const route of Object.keys(matrix)) areas.set(areaOf(route), [...(areas.get(areaOf(route)) ?? []), route]);
   const lines = [
@@ -44,5 +66,6 @@ export function renderRoleMatrixDoc(matrix: Readonly<Record<string, readonly Gra
     lines.push('', `## ${area}`, '', `| route | ${COLUMNS.join(' | ')} |`, `| --- | ${COLUMNS.map(() => ':-:').join(' | ')} |`);
     for (const route of routes) lines.push(row(route, matrix[route] ?? []));
   }
+  lines.push(...demoSection(demoAccounts));
   return `${lines.join('\n')}\n`;
 }
