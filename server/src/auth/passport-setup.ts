@@ -5,7 +5,6 @@ import { verifyPassword } from './passwords.js';
 import type { Role } from './principal.js';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     /** What passport puts on `req.user`: the signed-in person, read fresh from the database each request. */
     interface User {
