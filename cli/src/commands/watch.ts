@@ -12,6 +12,7 @@ import { startDropWatcher } from '../drop-folder/drop-watcher.js';
 import { openLedger } from '../drop-folder/ledger.js';
 import { dropLayout, ensureDropLayout, isIgnoredName, type DropLayout } from '../drop-folder/layout.js';
 import { localSpecSource, serverSpecSource } from '../drop-folder/spec-source.js';
+import { lastReleasedBetas } from '../transport/prior-betas.js';
 import { positiveIntegerOption } from './option-parsers.js';
 
 interface WatchOptions {
@@ -36,7 +37,10 @@ async function setUp(context: CommandContext, folder: string, options: WatchOpti
   const specs = options.spec !== undefined && options.spec.length > 0
     ? localSpecSource(options.spec)
     : serverSpecSource(client, layout.specCache, context.logger);
-  const processor = createDropProcessor({ layout, ledger: await openLedger(layout.ledgerFile), courier, specs, logger: context.logger, compute: computeRun });
+  const processor = createDropProcessor({
+    layout, ledger: await openLedger(layout.ledgerFile), courier, specs, logger: context.logger, compute: computeRun,
+    priorBetas: (specName) => lastReleasedBetas(client, specName),
+  });
   return { layout, courier, processor };
 }
 

@@ -10,7 +10,7 @@ import { deliveryOf } from '../batch/delivery-of.js';
 import { fileChecksum, type InputChecksum } from '../batch/input-checksums.js';
 import { matchesPattern, type RunInputPaths } from '../batch/input-roles.js';
 import { InputError } from '../inputs/input-error.js';
-import { archiveInput, rejectInput, rejectionOf } from './archive-and-reject.js';
+import { archiveInput, rejectInput, rejectionOf, type Rejection } from './archive-and-reject.js';
 import type { Courier } from './courier.js';
 import { findOtherInputs } from './input-finder.js';
 import { runKeyOf, type Ledger } from './ledger.js';
@@ -24,14 +24,25 @@ export interface ProcessorDeps {
   readonly specs: SpecSource;
   readonly logger: Logger;
   readonly compute: typeof computeRun;
+  /** The last released run's betas of a spec, for `big-move`; none when the server cannot say. */
+  readonly priorBetas?: (specName: string) => Promise<ReadonlyMap<string, number>>;
   readonly now?: () => Date;
 }
 
 type SpecOutcome = 'done' | 'waiting' | 'rejected';
 
+/** What became of a file: archived (every matching spec ran or had run), rejected, waiting, or no spec matches it. */
+export type FileOutcome = 'archived' | 'rejected' | 'waiting' | 'unmatched';
+
+export interface FileResult {
+  readonly outcome: FileOutcome;
+  /** Why the file was rejected (rejected only). */
+  readonly rejection?: Rejection;
+}
+
 export interface DropProcessor {
   /** Processes the settled files of incoming/ (full paths), price files in name order. */
-  process(settled: readonly string[]): Promise<void>;
+  process(settled: readonly string[]): Promise<Map<string, FileResult>>;
   /** Lets the current file finish, then processes no more. */
   stop(): void;
 }
@@ -42,6 +53,7 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
   const { layout, ledger, logger } = deps;
   const day = (): string => utcDay(deps.now?.());
   const told = new Set<string>();
+  const rejections = new Map<string, Rejection>();
   let stopping = false;
 
   function tellOnce(key: string, log: () => void): void {
@@ -52,9 +64,20 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
 
   async function reject(file: string, sha256: string, error: unknown, spec: string | null): Promise<void> {
     const rejection = rejectionOf(error);
+    rejections.set(file, rejection);
     const target = await rejectInput(layout, file, rejection, spec);
     await ledger.append({ kind: 'rejected', name: path.basename(file), sha256, code: rejection.code, spec, at: new Date().toISOString() });
     logger.error({ file: path.basename(file), code: rejection.code, movedTo: path.relative(layout.root, target) }, `input rejected: ${rejection.reason}`);
+  }
+
+  async function priorBetasOf(specName: string): Promise<ReadonlyMap<string, number>> {
+    if (deps.priorBetas === undefined) return new Map();
+    try {
+      return await deps.priorBetas(specName);
+    } catch (error) {
+      logger.warn({ spec: specName, err: error }, 'no prior betas from the server: big-move is not checked for this run');
+      return new Map();
+    }
   }
 
   async function runSpec(price: InputChecksum, watched: WatchedSpec, settled: readonly string[], used: Map<string, string>): Promise<SpecOutcome> {
@@ -73,7 +96,7 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
     }
     let run;
     try {
-      run = await deps.compute(watched.spec, paths);
+      run = await deps.compute(watched.spec, paths, { priorBetas: await priorBetasOf(watched.name) });
     } catch (error) {
       const culprit = error instanceof InputError ? path.resolve(error.file) : path.resolve(price.path);
       if (culprit === path.resolve(price.path)) {
@@ -94,7 +117,7 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
     return 'done';
   }
 
-  async function processPriceFile(file: string, matching: readonly WatchedSpec[], settled: readonly string[]): Promise<void> {
+  async function processPriceFile(file: string, matching: readonly WatchedSpec[], settled: readonly string[]): Promise<FileOutcome> {
     const price = await fileChecksum(file);
     const used = new Map<string, string>();
     const outcomes: SpecOutcome[] = [];
@@ -104,22 +127,27 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
       if (outcome === 'rejected') break;
     }
     for (const [other, sha256] of used) if (await exists(other)) await archiveInput(layout, other, sha256, day());
-    if (outcomes.includes('rejected') || outcomes.includes('waiting')) return;
+    if (outcomes.includes('rejected')) return 'rejected';
+    if (outcomes.includes('waiting')) return 'waiting';
     const target = await archiveInput(layout, file, price.sha256, day());
     logger.info({ file: price.name, archivedTo: path.relative(layout.root, target) }, 'input archived');
+    return 'archived';
   }
 
   return {
     async process(settled) {
+      const outcomes = new Map<string, FileResult>();
       const specs = await deps.specs.current();
       for (const file of [...settled].sort()) {
-        if (stopping) return;
+        if (stopping) break;
         if (!(await exists(file))) continue;
         const name = path.basename(file);
         const matching = specs.filter((s) => matchesPattern(name, s.spec.inputs.prices.pattern));
-        if (matching.length === 0) continue;
-        await processPriceFile(file, matching, settled);
+        const outcome = matching.length === 0 ? 'unmatched' : await processPriceFile(file, matching, settled);
+        const rejection = rejections.get(file);
+        outcomes.set(file, outcome === 'rejected' && rejection !== undefined ? { outcome, rejection } : { outcome });
       }
+      return outcomes;
     },
     stop() {
       stopping = true;

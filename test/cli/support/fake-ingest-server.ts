@@ -43,6 +43,7 @@ export async function startFakeIngestServer(token = 'clino_test-token'): Promise
     const body = await bodyOf(req);
     const key = String(req.headers['idempotency-key'] ?? '');
     if (req.method === 'GET' && url === '/api/specs') return send(res, 200, { items: [] });
+    if (req.method === 'GET' && url.startsWith('/api/runs?')) return send(res, 200, { items: [], page: 1, pageSize: 1, total: 0 });
     if (req.method === 'POST' && url === '/api/runs') {
       const request = JSON.parse(body.toString('utf8')) as { inputs: { sha256: string }[] };
       const earlier = state.runs.get(key) ?? { runId: String(nextRun++), body: request };
