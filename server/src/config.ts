@@ -19,6 +19,7 @@ const settingsSchema = z.object({
     consoleDir: z.string(),
     dataDir: z.string(),
     bodyLimit: z.string(),
+    inputLimit: z.string().regex(/^\d+(kb|mb|gb)?$/i),
   }),
   database: z.object({ host: z.string(), port, name: z.string().regex(/^\w+$/), user: z.string(), password: z.string() }),
   mail: z.object({
@@ -51,6 +52,7 @@ const environmentNames: Record<string, [keyof Settings, string]> = {
   CLINO_CONSOLE_DIR: ['server', 'consoleDir'],
   CLINO_DATA_DIR: ['server', 'dataDir'],
   CLINO_BODY_LIMIT: ['server', 'bodyLimit'],
+  CLINO_INPUT_LIMIT: ['server', 'inputLimit'],
   CLINO_DB_HOST: ['database', 'host'],
   CLINO_DB_PORT: ['database', 'port'],
   CLINO_DB_NAME: ['database', 'name'],

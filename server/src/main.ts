@@ -4,16 +4,17 @@ import { createApp } from './app.js';
 import { loadSettings } from './config.js';
 import { createSequelize } from './db/sequelize.js';
 import { createMailSink, listen } from './mail/mail-sink.js';
+import { storeSinkedMessage } from './mail/mail-store.service.js';
 import { createLogger } from './shared/logger.js';
+import { contentStoreOf } from './store/store-of-settings.js';
 
 const settings = loadSettings();
 const logger = createLogger(settings.log.level);
 const sequelize = createSequelize(settings.database, logger);
 const app = createApp({ settings, sequelize, logger });
 
-const sink = settings.mail.sink
-  ? createMailSink(async (m) => logger.info({ to: m.envelopeTo, subject: m.parsed.subject }, 'mail sink received a message'), logger)
-  : undefined;
+const store = contentStoreOf(settings);
+const sink = settings.mail.sink ? createMailSink((message) => storeSinkedMessage(store, message), logger) : undefined;
 if (sink) {
   await listen(sink, settings.mail.port, settings.mail.host);
   logger.info(`mail sink listening on smtp://${settings.mail.host}:${settings.mail.port}`);

@@ -3,6 +3,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import { loadSettings, type Settings } from '../config.js';
 import { DEMO_TOKEN_NAME, ensureDemoMachineToken } from '../people/demo-machine-token.js';
 import { seedDemoPeople } from '../people/demo-people.js';
+import { DEMO_LIST_NAME, ensureDemoDistributionList } from '../releases/demo-distribution-list.js';
 import { initModels } from './init-models.js';
 
 const SEED_KEY = 'demo-seed';
@@ -30,6 +31,7 @@ export async function seedDemo(sequelize: Sequelize, logger: Logger, auth: Setti
     });
     logger.info('demo seed applied');
   }
+  if ((await ensureDemoDistributionList(sequelize)) === 'created') logger.info(`demo distribution list "${DEMO_LIST_NAME}" created`);
   const token = await ensureDemoMachineToken(sequelize, auth.demoMachineToken);
   if (token.kind === 'created' && token.generatedValue) {
     logger.info(`demo machine token "${DEMO_TOKEN_NAME}" created; its value (shown this once): ${token.generatedValue}`);

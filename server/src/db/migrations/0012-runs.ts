@@ -48,12 +48,11 @@ export const up: MigrationFn<MigrationContext> = async ({ context: { queryInterf
   await queryInterface.createTable('run_inputs', {
     id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
     run_id: { type: DataTypes.INTEGER, allowNull: false, references: { model: 'runs', key: 'id' }, onDelete: 'CASCADE' },
-    role: { type: DataTypes.STRING(32), allowNull: false },
     name: { type: DataTypes.STRING(255), allowNull: false },
     sha256: { type: DataTypes.CHAR(64), allowNull: false },
     size: { type: DataTypes.BIGINT, allowNull: false },
   });
-  await queryInterface.addIndex('run_inputs', ['run_id', 'role', 'name'], { unique: true, name: 'run_inputs_run_role_name' });
+  await queryInterface.addIndex('run_inputs', ['run_id', 'name'], { unique: true, name: 'run_inputs_run_name' });
   await queryInterface.addIndex('run_inputs', ['sha256'], { name: 'run_inputs_sha256' });
 };
 
