@@ -1,0 +1,129 @@
+// The benchmark's work on one slice of the securities, the same in the main thread or in a worker:
+// align on the grid, full-window statistics with the OLS and the Dimson (k = 1) base estimators,
+// rolling OLS betas ending at every period, and the rolling betas formatted as CSV cells. Glue only:
+// every number comes from cli/src/engine/; every cell from the contracts' number format.
+import { formatNumberCell } from '../server/src/contracts/result-csv.js';
+import { alignReturns } from '../cli/src/engine/align.js';
+import type { AlignedSample } from '../cli/src/engine/align.js';
+import type { RiskFreeSource, YieldSeries } from '../cli/src/engine/risk-free.js';
+import { rollingBetas } from '../cli/src/engine/rolling.js';
+import { estimateSecurity } from '../cli/src/engine/statistics.js';
+import type { EstimationSettings } from '../cli/src/engine/statistics.js';
+import { PERIODS_PER_YEAR } from '../cli/src/engine/types.js';
+import type { BaseEstimator, Frequency, SecurityResult } from '../cli/src/engine/types.js';
+import { windowBounds } from '../cli/src/engine/window.js';
+
+/** What a slice needs: the price file's dates, its share of the securities, the market, the yields. */
+export interface SliceData {
+  readonly days: Int32Array;
+  readonly ids: readonly string[];
+  readonly prices: readonly Float64Array[];
+  readonly marketDays: Int32Array;
+  readonly marketPrices: Float64Array;
+  readonly yields: YieldSeries;
+}
+
+export interface WindowSetting {
+  readonly length: number;
+  readonly minimum: number;
+}
+
+export interface SliceStatistics {
+  readonly ols: SecurityResult[];
+  readonly dimson: SecurityResult[];
+}
+
+/** One row of cells per rolling end (oldest first), the slice's securities in order, as UTF-8. */
+export interface FormattedRows {
+  /** Securities in the slice (a slice of none adds no cells). */
+  readonly columns: number;
+  readonly bytes: Uint8Array;
+  /** Row r is bytes[offsets[r] .. offsets[r + 1]). */
+  readonly offsets: Int32Array;
+}
+
+export interface RollingSummary {
+  /** Period label of each rolling end, oldest first. */
+  readonly labels: string[];
+}
+
+export interface SliceWork {
+  statistics(frequency: Frequency, window: WindowSetting): SliceStatistics;
+  /** Rolling betas ending at every period; the daily returns are let go afterwards. */
+  rolling(window: WindowSetting): RollingSummary;
+  /** Rolling-beta rows [from, to) formatted as CSV cells (oldest end first). */
+  formatRolling(from: number, to: number): FormattedRows;
+}
+
+function settingsOf(estimator: BaseEstimator, frequency: Frequency, window: WindowSetting): EstimationSettings {
+  return {
+    estimator, dimsonLags: 1, minimum: window.minimum, periodsPerYear: PERIODS_PER_YEAR[frequency],
+    adjustment: 'blume', blumeWeight: 2 / 3,
+  };
+}
+
+function align(data: SliceData, frequency: Frequency): AlignedSample {
+  const riskFree: RiskFreeSource = { kind: 'series', series: data.yields };
+  return alignReturns({
+    frequency, asOf: 'latest', returnKind: 'simple', riskFree,
+    market: { id: 'market', days: data.marketDays, prices: data.marketPrices },
+    securities: data.ids.map((id, k) => ({ id, days: data.days, prices: data.prices[k]! })),
+  });
+}
+
+function statisticsOf(aligned: AlignedSample, frequency: Frequency, window: WindowSetting): SliceStatistics {
+  const bounds = windowBounds(aligned.asOfIndex, window.length);
+  const range = { start: bounds.first, end: bounds.last };
+  const labels = aligned.grid.labels;
+  const ols = settingsOf('ols', frequency, window);
+  const dimson = settingsOf('dimson', frequency, window);
+  return {
+    ols: aligned.securities.map((s) => estimateSecurity(s, aligned.marketExcess, range, labels, ols)),
+    dimson: aligned.securities.map((s) => estimateSecurity(s, aligned.marketExcess, range, labels, dimson)),
+  };
+}
+
+/** Cells of one row are at most 25 bytes (shortest round-trip doubles) plus a comma. */
+const MAX_CELL_BYTES = 26;
+
+function formatColumns(columns: readonly Float64Array[], from: number, to: number): FormattedRows {
+  const rows = Math.max(0, to - from);
+  const bytes = new Uint8Array(Math.max(1, rows * columns.length * MAX_CELL_BYTES));
+  const offsets = new Int32Array(rows + 1);
+  let position = 0;
+  for (let r = 0; r < rows; r++) {
+    for (let k = 0; k < columns.length; k++) {
+      if (k > 0) bytes[position++] = 0x2c; // ','
+      const cell = formatNumberCell(columns[k]![from + r]!);
+      for (let i = 0; i < cell.length; i++) bytes[position++] = cell.charCodeAt(i); // ASCII only
+    }
+    offsets[r + 1] = position;
+  }
+  return { columns: columns.length, bytes: bytes.slice(0, position), offsets };
+}
+
+export function sliceWork(data: SliceData): SliceWork {
+  let daily: AlignedSample | null = null;
+  let betas: Float64Array[] = [];
+  const dailyAligned = (): AlignedSample => (daily ??= align(data, 'daily'));
+  return {
+    statistics(frequency, window) {
+      return statisticsOf(frequency === 'daily' ? dailyAligned() : align(data, frequency), frequency, window);
+    },
+    rolling(window) {
+      const aligned = dailyAligned();
+      const settings = { length: window.length, step: 1, count: 'all' as const, minimum: window.minimum };
+      let ends: Int32Array = new Int32Array(0);
+      betas = aligned.securities.map((s) => {
+        const rolled = rollingBetas(s.excess, aligned.marketExcess, aligned.asOfIndex, settings);
+        ends = rolled.ends;
+        return rolled.beta;
+      });
+      daily = null;
+      return { labels: Array.from(ends, (end) => aligned.grid.labels[end]!) };
+    },
+    formatRolling(from, to) {
+      return formatColumns(betas, from, to);
+    },
+  };
+}
