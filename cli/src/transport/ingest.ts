@@ -63,18 +63,18 @@ async function uploadInputs(client: ServerClient, inputs: readonly DeliveryInput
   }
 }
 
-async function markComputing(client: ServerClient, runId: string, resumed: boolean): Promise<void> {
+async function markComputing(client: ServerClient, runId: string): Promise<void> {
   try {
     await client.request('POST', `/api/runs/${encodeURIComponent(runId)}/computing`, { json: {} });
   } catch (error) {
-    // A resumed delivery may find the run already computing (or further): that step is done.
-    if (!(resumed && error instanceof CliError && error.code === 'RUN_STATE_CONFLICT')) throw error;
+    // A repeated delivery (a resumed outbox item, the same run posted twice) finds the run computing
+    // or further: that step is done, and the results post with the same key answers as the first.
+    if (!(error instanceof CliError && error.code === 'RUN_STATE_CONFLICT')) throw error;
   }
 }
 
 export async function deliverRun(client: ServerClient, delivery: Delivery, hooks: DeliveryHooks = {}): Promise<string> {
   let runId = delivery.runId;
-  const resumed = runId !== undefined;
   let missing = new Set(delivery.inputs.map((input) => input.sha256));
   if (runId === undefined) {
     const created = await createRun(client, delivery);
@@ -83,7 +83,7 @@ export async function deliverRun(client: ServerClient, delivery: Delivery, hooks
     await hooks.runCreated?.(runId);
   }
   await uploadInputs(client, delivery.inputs, missing);
-  await markComputing(client, runId, resumed);
+  await markComputing(client, runId);
   await client.request('POST', `/api/runs/${encodeURIComponent(runId)}/results`, { json: delivery.results, idempotencyKey: delivery.key });
   return runId;
 }

@@ -9,7 +9,7 @@ export const ROOT = path.join(import.meta.dirname, '../../..');
 export const CLINO = path.join(ROOT, 'cli/bin/clino.js');
 
 export function isolatedEnv(extra: Record<string, string> = {}): Record<string, string> {
-  return { CLINO_CONFIG_DIR: mkdtempSync(path.join(tmpdir(), 'clino-config-')), NO_COLOR: '1', ...extra };
+  return { CLINO_CONFIG_DIR: mkdtempSync(path.join(tmpdir(), 'clino-config-')), NO_COLOR: '1', CLINO_LOG_LEVEL: 'info', ...extra };
 }
 
 export interface ClinoResult {
