@@ -38,7 +38,8 @@ export function ingestRoutes({ settings, sequelize }: AppDependencies): Router {
   });
   router.post('/runs/:id/failure', requireRole(), failure, async (req, res) => {
     const { params, body } = failure.of(req);
-    res.json(await markFailed(context(req), params.id, body));
+    const answer = await markFailed(context(req), params.id, body, idempotencyKeyOf(req, false));
+    res.status(answer.status).json(answer.body);
   });
   return router;
 }

@@ -97,19 +97,21 @@ export async function markComputing(ctx: IngestContext, runId: number): Promise<
   });
 }
 
-/** received or computing → failed, with the shared error code and message. */
-export async function markFailed(ctx: IngestContext, runId: number, failure: PostFailureRequest): Promise<Record<string, unknown>> {
+/** received or computing → failed, with the shared error code and message; a retry with the same Idempotency-Key answers the same. */
+export async function markFailed(ctx: IngestContext, runId: number, failure: PostFailureRequest, key: string | undefined): Promise<Answer> {
   return ctx.sequelize.transaction(async (transaction) => {
     const run = await lockRun(runId, transaction);
-    requireState(run, ['received', 'computing'], 'a failure');
-    const before = runAuditView(run);
-    const now = new Date();
-    await run.update({ state: 'failed', failureCode: failure.code, failureMessage: failure.message, finishedAt: now }, { transaction });
-    await RunAttempt.update(
-      { state: 'failed', failureCode: failure.code, failureMessage: failure.message, finishedAt: now },
-      { where: { runId, number: run.attempt }, transaction },
-    );
-    await recordAudit(transaction, { actor: ctx.actor.principal, action: 'run.fail', entityType: 'run', entityId: run.id, before, after: { ...runAuditView(run), failureMessage: failure.message }, requestId: ctx.requestId });
-    return { runId: String(run.id), attempt: run.attempt, state: run.state };
+    return oncePerKey(transaction, `failure:${run.id}`, key, failure, async () => {
+      requireState(run, ['received', 'computing'], 'a failure');
+      const before = runAuditView(run);
+      const now = new Date();
+      await run.update({ state: 'failed', failureCode: failure.code, failureMessage: failure.message, finishedAt: now }, { transaction });
+      await RunAttempt.update(
+        { state: 'failed', failureCode: failure.code, failureMessage: failure.message, finishedAt: now },
+        { where: { runId, number: run.attempt }, transaction },
+      );
+      await recordAudit(transaction, { actor: ctx.actor.principal, action: 'run.fail', entityType: 'run', entityId: run.id, before, after: { ...runAuditView(run), failureMessage: failure.message }, requestId: ctx.requestId });
+      return { status: 200, body: { runId: String(run.id), attempt: run.attempt, state: run.state } };
+    });
   });
 }

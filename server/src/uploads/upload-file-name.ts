@@ -11,15 +11,17 @@ const MAX_NAME = 100;
  */
 export function sanitiseFileName(original: string): string {
   const base = original.split(/[\\/]/).pop() ?? '';
-  const cleaned = base
+  const dot = base.lastIndexOf('.');
+  const rawExtension = dot >= 0 ? base.slice(dot + 1) : '';
+  const extension = /^[A-Za-z0-9]{1,10}$/.test(rawExtension) ? `.${rawExtension.toLowerCase()}` : '';
+  const stem = (extension ? base.slice(0, dot) : base)
     .normalize('NFKD')
     .replace(/[^A-Za-z0-9._-]+/g, '-')
     .replace(/-{2,}/g, '-')
     .replace(/\.{2,}/g, '.')
-    .replace(/^[.-]+/, '');
-  const dot = cleaned.lastIndexOf('.');
-  const extension = dot > 0 ? cleaned.slice(dot).toLowerCase() : '';
-  const stem = (dot > 0 ? cleaned.slice(0, dot) : cleaned).replace(/[.-]+$/, '').slice(0, MAX_NAME - extension.length);
+    .replace(/^[.-]+|[.-]+$/g, '')
+    .slice(0, MAX_NAME - extension.length)
+    .replace(/[.-]+$/, '');
   return `${stem === '' ? 'upload' : stem}${extension}`;
 }
 
