@@ -102,13 +102,26 @@ function formatColumns(columns: readonly Float64Array[], from: number, to: numbe
   return { columns: columns.length, bytes: bytes.slice(0, position), offsets };
 }
 
+/**
+ * Memory: the daily returns are aligned once and kept for the rolling betas, then let go; the prices
+ * are let go once the daily returns exist (run the monthly statistics first).
+ */
 export function sliceWork(data: SliceData): SliceWork {
+  let prices: SliceData | null = data;
   let daily: AlignedSample | null = null;
   let betas: Float64Array[] = [];
-  const dailyAligned = (): AlignedSample => (daily ??= align(data, 'daily'));
+  const pricesData = (): SliceData => {
+    if (prices === null) throw new Error('the prices were let go after the daily alignment: run the monthly statistics first');
+    return prices;
+  };
+  const dailyAligned = (): AlignedSample => {
+    daily ??= align(pricesData(), 'daily');
+    prices = null;
+    return daily;
+  };
   return {
     statistics(frequency, window) {
-      return statisticsOf(frequency === 'daily' ? dailyAligned() : align(data, frequency), frequency, window);
+      return statisticsOf(frequency === 'daily' ? dailyAligned() : align(pricesData(), frequency), frequency, window);
     },
     rolling(window) {
       const aligned = dailyAligned();

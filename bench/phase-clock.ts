@@ -4,6 +4,8 @@ import { performance } from 'node:perf_hooks';
 export interface PhaseTime {
   readonly name: string;
   readonly seconds: number;
+  /** Resident set size at the end of the phase (all threads), MB. */
+  readonly rssMb: number;
 }
 
 export interface TimingReport {
@@ -19,7 +21,7 @@ export class PhaseClock {
   async time<T>(name: string, work: () => T | Promise<T>): Promise<T> {
     const start = performance.now();
     const result = await work();
-    this.phases.push({ name, seconds: (performance.now() - start) / 1000 });
+    this.phases.push({ name, seconds: (performance.now() - start) / 1000, rssMb: process.memoryUsage.rss() / 2 ** 20 });
     return result;
   }
 
@@ -30,7 +32,7 @@ export class PhaseClock {
   }
 
   table(title: string): string {
-    const lines = this.phases.map((phase) => `  ${phase.name.padEnd(20)} ${phase.seconds.toFixed(2).padStart(8)} s`);
+    const lines = this.phases.map((phase) => `  ${phase.name.padEnd(20)} ${phase.seconds.toFixed(2).padStart(8)} s  (RSS after: ${phase.rssMb.toFixed(0)} MB)`);
     const report = this.report({});
     return `${title}\n${lines.join('\n')}\n  ${'total'.padEnd(20)} ${report.totalSeconds.toFixed(2).padStart(8)} s\n  peak RSS ${report.peakRssMb.toFixed(0)} MB\n`;
   }

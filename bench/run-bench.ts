@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { readPriceFile } from '../cli/src/inputs/price-file.js';
 import { readRiskFreeFile } from '../cli/src/inputs/risk-free-file.js';
-import { openSlicePool } from './slice-pool.js';
+import { startSlicePool } from './slice-pool.js';
 import type { SlicePool } from './slice-pool.js';
 import { PhaseClock } from './phase-clock.js';
 import { resultRowsOf, writeRollingCsv } from './batch-output.js';
@@ -33,8 +33,9 @@ const workers = Number(values.workers);
 const out = values.out;
 await mkdir(out, { recursive: true });
 const clock = new PhaseClock();
+const started = startSlicePool(workers);
 
-const [prices, yields] = await clock.time('parse', () => Promise.all([
+let [prices, yields] = await clock.time('parse', () => Promise.all([
   readPriceFile(join(values.data, 'prices-wide.csv'), {
     delimiter: ',', dateFormat: 'YYYY-MM-DD', columns: { layout: 'wide', dateColumn: 'date' }, marketId: 'MKT',
   }),
@@ -45,10 +46,12 @@ const [prices, yields] = await clock.time('parse', () => Promise.all([
 const market = prices.market!;
 const ids = prices.securities.map((series) => series.id);
 
-const pool: SlicePool = await clock.time('start workers', () => openSlicePool(prices.securities, market, yields, workers));
+const pool: SlicePool = await clock.time('hand out slices', () => started.load(prices.securities, market, yields));
+prices = { ...prices, securities: [] }; // the slices own the price arrays now
 const resultRows = new Map<string, ResultRow[]>();
 
-for (const frequency of ['daily', 'monthly'] as const satisfies readonly Frequency[]) {
+// Monthly first: the slices let the prices go once the daily returns are aligned.
+for (const frequency of ['monthly', 'daily'] as const satisfies readonly Frequency[]) {
   await clock.time(`${frequency} statistics`, async () => {
     const parts = await pool.statistics({ phase: 'statistics', frequency, window: WINDOWS[frequency] });
     resultRows.set(`${frequency}-ols.csv`, resultRowsOf(parts.flatMap((p) => p.ols)));

@@ -1,18 +1,17 @@
 // The benchmark's slices of securities: run in the main thread (one slice) or in worker threads (one
-// slice each, the price arrays transferred to the worker, not copied). Every slice answers the same
-// phase requests; the pool sends a request to every slice and waits for all the answers.
+// slice each, the price arrays transferred to the worker, not copied). Workers are started before the
+// input is parsed (their module loading overlaps the parse) and loaded with their slice afterwards.
+// Every slice answers the same phase requests; the pool sends a request to every slice and waits for
+// all the answers.
 import { Worker } from 'node:worker_threads';
 import { once } from 'node:events';
 import { sliceWork } from './batch-slice.js';
 import type { FormattedRows, RollingSummary, SliceData, SliceStatistics } from './batch-slice.js';
-import type { PhaseRequest } from './batch-worker.js';
+import type { PhaseRequest, WorkerRequest } from './batch-worker.js';
 import type { DatedSeries } from '../cli/src/inputs/price-file-options.js';
 import type { YieldSeries } from '../cli/src/engine/risk-free.js';
 
-interface Slice {
-  request(request: PhaseRequest): Promise<unknown>;
-  close(): Promise<void>;
-}
+type Ask = (request: PhaseRequest) => Promise<unknown>;
 
 export interface SlicePool {
   readonly size: number;
@@ -23,41 +22,25 @@ export interface SlicePool {
   close(): Promise<void>;
 }
 
-function localSlice(data: SliceData): Slice {
-  const work = sliceWork(data);
-  return {
-    request(request) {
-      switch (request.phase) {
-        case 'statistics': return Promise.resolve(work.statistics(request.frequency, request.window));
-        case 'rolling': return Promise.resolve(work.rolling(request.window));
-        case 'format-rolling': return Promise.resolve(work.formatRolling(request.from, request.to));
-      }
-    },
-    close: () => Promise.resolve(),
-  };
+export interface StartedPool {
+  /** Hands each slice its securities (with the market and the yields) and answers the working pool. */
+  load(securities: readonly DatedSeries[], market: DatedSeries, yields: YieldSeries): Promise<SlicePool>;
 }
 
-async function workerSlice(data: SliceData): Promise<Slice> {
+async function request(worker: Worker, message: WorkerRequest, transfer: ArrayBuffer[] = []): Promise<unknown> {
+  const reply = once(worker, 'message');
+  worker.postMessage(message, transfer);
+  const [answer] = await reply;
+  return answer as unknown;
+}
+
+async function startWorker(): Promise<Worker> {
   // Node 20 does not pass tsx's loader to a worker whose entry is a .ts file: register it first.
   const entry = JSON.stringify(new URL('./batch-worker.ts', import.meta.url).href);
   const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${entry}); });`;
-  const worker = new Worker(bootstrap, {
-    eval: true,
-    workerData: data,
-    transferList: data.prices.map((prices) => prices.buffer as ArrayBuffer),
-  });
+  const worker = new Worker(bootstrap, { eval: true });
   await once(worker, 'message'); // 'ready': the worker's modules are loaded
-  return {
-    async request(request) {
-      const reply = once(worker, 'message');
-      worker.postMessage(request);
-      const [message] = await reply;
-      return message as unknown;
-    },
-    async close() {
-      await worker.terminate();
-    },
-  };
+  return worker;
 }
 
 /** Contiguous, nearly equal slices of the securities, each with the market and the yields. */
@@ -72,18 +55,41 @@ function slices(securities: readonly DatedSeries[], market: DatedSeries, yields:
   });
 }
 
-/** One slice in this thread when `workers` ≤ 1; otherwise one worker thread per slice. */
-export async function openSlicePool(
-  securities: readonly DatedSeries[], market: DatedSeries, yields: YieldSeries, workers: number,
-): Promise<SlicePool> {
-  const parts = slices(securities, market, yields, Math.max(1, workers));
-  const all: Slice[] = workers <= 1 ? parts.map(localSlice) : await Promise.all(parts.map(workerSlice));
-  const each = <T>(request: PhaseRequest) => Promise.all(all.map((slice) => slice.request(request))) as Promise<T[]>;
+function poolOf(asks: readonly Ask[], close: () => Promise<void>): SlicePool {
+  const each = <T>(phase: PhaseRequest) => Promise.all(asks.map((ask) => ask(phase))) as Promise<T[]>;
   return {
-    size: all.length,
-    statistics: (request) => each<SliceStatistics>(request),
-    rolling: (request) => each<RollingSummary>(request),
+    size: asks.length,
+    statistics: (phase) => each<SliceStatistics>(phase),
+    rolling: (phase) => each<RollingSummary>(phase),
     formatRolling: (from, to) => each<FormattedRows>({ phase: 'format-rolling', from, to }),
-    close: async () => { await Promise.all(all.map((slice) => slice.close())); },
+    close,
+  };
+}
+
+function localAsk(data: SliceData): Ask {
+  const work = sliceWork(data);
+  return (phase) => {
+    switch (phase.phase) {
+      case 'statistics': return Promise.resolve(work.statistics(phase.frequency, phase.window));
+      case 'rolling': return Promise.resolve(work.rolling(phase.window));
+      case 'format-rolling': return Promise.resolve(work.formatRolling(phase.from, phase.to));
+    }
+  };
+}
+
+/** One slice in this thread when `workers` ≤ 1; otherwise one worker thread per slice, started now. */
+export function startSlicePool(workers: number): StartedPool {
+  if (workers <= 1) {
+    return { load: (securities, market, yields) => Promise.resolve(poolOf(slices(securities, market, yields, 1).map(localAsk), () => Promise.resolve())) };
+  }
+  const started = Promise.all(Array.from({ length: workers }, startWorker));
+  return {
+    async load(securities, market, yields) {
+      const threads = await started;
+      const parts = slices(securities, market, yields, threads.length);
+      await Promise.all(threads.map((worker, s) => request(worker, { phase: 'load', data: parts[s]! }, parts[s]!.prices.map((p) => p.buffer as ArrayBuffer))));
+      const asks = threads.map((worker): Ask => (phase) => request(worker, phase));
+      return poolOf(asks, async () => { await Promise.all(threads.map((worker) => worker.terminate())); });
+    },
   };
 }

@@ -24,6 +24,7 @@ export interface ReferenceCase {
   readonly minimum: number;
   readonly grid_periods: number;
   readonly as_of_period: string;
+  readonly as_of_date: string;
   readonly securities: Readonly<Record<string, ReferenceSecurity>>;
 }
 

@@ -3,7 +3,7 @@
 // afresh from Debian's python3-statsmodels (0.13.5 here) and python3-pandas (1.5.3 here) — the exact
 // versions come back in the script's JSON and are printed with the results. The script implements
 // DESIGN.md's sampling, returns, risk-free and window conventions on its own, in pandas; our side is
-// Clinometer's readers and engine on the same files. Every statistic of every security must agree to
+// computeRun (readers, engine, batch glue) on the same files. Every statistic of every security must agree to
 // relative 1e-9 or absolute 1e-12, whichever is looser; p-values to absolute 1e-10.
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
@@ -14,9 +14,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Frequency } from '../../cli/src/engine/types.js';
 import { compareSecurity, emptyTally, RELATIVE_TOLERANCE, P_VALUE_TOLERANCE } from './compare-statistics.js';
 import type { ComparisonTally, ReferenceCase, ReferenceDocument } from './compare-statistics.js';
-import { readSyntheticInputs, runEngineCase } from './engine-side.js';
-import type { SyntheticInputs } from './engine-side.js';
+import { runEngineCase } from './engine-side.js';
 import { writeSyntheticInputs } from './make-synthetic.js';
+import type { SyntheticFiles } from './make-synthetic.js';
 
 const SCRIPT = fileURLToPath(new URL('./statsmodels_reference.py', import.meta.url));
 const CONSTANT_YIELD = 0.025;
@@ -28,18 +28,17 @@ const CASES = AS_OF_DATES.flatMap((asOf) => FREQUENCIES.flatMap((frequency) =>
 
 let folder = '';
 let reference: ReferenceDocument;
-let inputs: SyntheticInputs;
+let files: SyntheticFiles;
 const tallies = new Map<Frequency, ComparisonTally>(FREQUENCIES.map((frequency) => [frequency, emptyTally()]));
 
 beforeAll(async () => {
   folder = await mkdtemp(join(tmpdir(), 'clino-reference-'));
-  const files = await writeSyntheticInputs(folder);
+  files = await writeSyntheticInputs(folder);
   const asOfArguments = AS_OF_DATES.flatMap((asOf) => ['--as-of', asOf]);
   const python = await execa('/usr/bin/python3', [
     SCRIPT, files.prices, files.market, files.riskFree, '--constant-yield', String(CONSTANT_YIELD), ...asOfArguments,
   ], { timeout: 120_000 });
   reference = JSON.parse(python.stdout) as ReferenceDocument;
-  inputs = await readSyntheticInputs(files);
 });
 
 afterAll(async () => {
@@ -59,12 +58,12 @@ describe('live comparison with statsmodels OLS on pandas (synthetic data with ga
     process.stdout.write(`reference libraries: ${JSON.stringify(reference.versions)}\n`);
   });
 
-  it.each(CASES)('$frequency, as of $asOf, risk-free from $riskFree: every statistic of every security agrees', ({ frequency, asOf, riskFree }) => {
+  it.each(CASES)('$frequency, as of $asOf, risk-free from $riskFree: every statistic of every security agrees', async ({ frequency, asOf, riskFree }) => {
     const expected = referenceCase(frequency, asOf, riskFree);
-    const ours = runEngineCase(inputs, { frequency, asOf, riskFree, window: expected.window, minimum: expected.minimum }, CONSTANT_YIELD);
+    const ours = await runEngineCase(files, { frequency, asOf, riskFree, window: expected.window, minimum: expected.minimum }, CONSTANT_YIELD);
     const tally = tallies.get(frequency)!;
     const mismatchesBefore = tally.mismatches.length;
-    expect([ours.gridPeriods, ours.asOfPeriod]).toEqual([expected.grid_periods, expected.as_of_period]);
+    expect(ours.asOf).toBe(expected.as_of_date);
     expect([...ours.securities.keys()].sort()).toEqual(Object.keys(expected.securities).sort());
     for (const [id, security] of ours.securities) {
       compareSecurity(tally, `${frequency} ${asOf} ${riskFree} ${id}`, security, expected.securities[id]!);

@@ -177,7 +177,8 @@ def run_case(prices, market, rates, frequency, as_of_text, constant_yield):
         securities[code] = security_result(security_excess, market_excess, window, minimum, labels, PERIODS_PER_YEAR[frequency])
     return {
         "frequency": frequency, "as_of": as_of_text, "risk_free": "constant" if constant_yield is not None else "file",
-        "window": length, "minimum": minimum, "grid_periods": len(grid), "as_of_period": labels[-1], "securities": securities,
+        "window": length, "minimum": minimum, "grid_periods": len(grid), "as_of_period": labels[-1],
+        "as_of_date": as_of.strftime("%Y-%m-%d"), "securities": securities,
     }
 
 
