@@ -31,7 +31,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const args = process.argv.slice(2);
   const at = args.indexOf('--through');
   const through = at >= 0 ? args[at + 1] : undefined;
-  const positional = args.filter((arg, i) => arg !== '--through' && i !== at + 1);
+  const positional = args.filter((_, i) => at < 0 || (i !== at && i !== at + 1));
   const folder = path.resolve(positional[0] ?? path.join(root, 'samples/drop'));
   const names = seedDemoDrop(folder, through);
   process.stdout.write(names.length === 0 ? `${folder} is not new: left as it is\n` : `${names.map((n) => path.join(folder, 'incoming', n)).join('\n')}\n`);

@@ -106,13 +106,13 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
       if (await exists(culprit)) await reject(culprit, otherChecksums.find((c) => path.resolve(c.path) === culprit)?.sha256 ?? '', error, watched.name);
       return 'waiting';
     }
+    logger.info({ file: price.name, spec: watched.name, asOf: run.asOf, securities: run.rows.length }, 'run computed');
     const delivery = deliveryOf(watched.name, watched.sha256, run);
     await deps.courier.spool(delivery);
     await ledger.append({
       kind: 'run', runKey, spec: watched.name, specSha256: watched.sha256, asOf: run.asOf, deliveryKey: delivery.key,
       inputs: run.inputs.map(({ name, sha256 }) => ({ name, sha256 })), at: new Date().toISOString(),
     });
-    logger.info({ file: price.name, spec: watched.name, asOf: run.asOf, securities: run.rows.length }, 'run computed and spooled');
     for (const checksum of otherChecksums) if (path.dirname(path.resolve(checksum.path)) === path.resolve(layout.incoming)) used.set(checksum.path, checksum.sha256);
     return 'done';
   }
