@@ -3,6 +3,7 @@
 import { mkdirSync, mkdtempSync, readFileSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { execa } from 'execa';
 import { describe, expect, it } from 'vitest';
 import { loadRunSpec } from '../../server/src/contracts/run-spec.load.js';
 import { matchesPattern, neededRoles } from '../../cli/src/batch/input-roles.js';
@@ -20,6 +21,13 @@ describe('scripts/demo-drop.ts', () => {
       const { spec } = loadRunSpec(readFileSync(file, 'utf8'), file);
       for (const { pattern } of neededRoles(spec)) expect(names.filter((n) => matchesPattern(n, pattern))).toHaveLength(1);
     }
+  });
+
+  it('writes into the folder named on its command line', async () => {
+    const folder = path.join(mkdtempSync(path.join(tmpdir(), 'clino-demo-drop-')), 'named');
+    const result = await execa('node', ['--import', 'tsx', path.join(ROOT, 'scripts/demo-drop.ts'), folder], { cwd: ROOT });
+    expect(result.stdout.split('\n')[0]).toBe(path.join(folder, 'incoming', 'tarn-equities-20261130.csv'));
+    expect(readdirSync(path.join(folder, 'incoming'))).toHaveLength(4);
   });
 
   it('leaves a drop folder that is already in use as it is', () => {
