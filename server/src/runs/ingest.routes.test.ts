@@ -37,6 +37,14 @@ describe('the ingest protocol', () => {
     expect(run?.fingerprint).toBe(`clinometer-fingerprint 1\nspec ${specSha}\ninput ${PRICES.sha256} ${PRICES.name}\n`);
   });
 
+  it('answers the same run when a create is retried with the same Idempotency-Key', async () => {
+    const body = { specSha256: specSha, specName: 'ingest-test', asOf: '2026-08-31', inputs: [{ name: PRICES.name, sha256: PRICES.sha256, size: PRICES.bytes.length }] };
+    const first = await machine('post', '/api/runs').set('Idempotency-Key', 'create-once').send(body).expect(201);
+    const again = await machine('post', '/api/runs').set('Idempotency-Key', 'create-once').send(body).expect(201);
+    expect(again.body).toEqual(first.body);
+    expect(await Run.count({ where: { asOf: '2026-08-31' } })).toBe(1);
+  });
+
   it('refuses to mark a run computing before its inputs are uploaded', async () => {
     const other = inputFile('prices-2026-07.csv', 'date,QZ1,MKT\n2026-07-31,102,2020\n');
     const created = await machine('post', '/api/runs').send({ specSha256: specSha, specName: 'ingest-test', asOf: '2026-07-31', inputs: [{ name: other.name, sha256: other.sha256, size: other.bytes.length }] }).expect(201);
@@ -106,7 +114,7 @@ describe('the ingest protocol', () => {
     const stored = await RunResult.findOne({ where: { runId: Number(runId), security: 'QZ-04999' } });
     expect(stored?.scatter?.market).toHaveLength(60);
     expect(stored?.rolling?.betas).toHaveLength(24);
-  });
+  }, 120_000); // a guard for a loaded machine (22 MB through JSON and MariaDB), not a speed check
 
   it('keeps none of the rows when storing fails part way: all or nothing', async () => {
     const runId = await computingRun(fixture, 'ingest-test', specSha, '2025-12-31', [PRICES]);
