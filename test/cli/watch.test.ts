@@ -23,7 +23,7 @@ function archived(): string[] {
 }
 
 function startWatcher(): ReturnType<typeof startClino> {
-  return startClino(['watch', drop, '--spec', specFile, '--settle-ms', '800', '--retry-ms', '200', '--retry-max-ms', '1000', '--rescan-seconds', '1'], env);
+  return startClino(['watch', drop, '--spec', specFile, '--settle-ms', '1500', '--retry-ms', '200', '--retry-max-ms', '1000', '--rescan-seconds', '1'], env);
 }
 
 beforeAll(async () => {
