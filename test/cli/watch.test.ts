@@ -60,6 +60,9 @@ describe('clino watch', () => {
     expect(watcher.stderr()).toContain('same spec and same content ran before: not run again');
     expect(server.runs.size).toBe(creates);
     expect(server.results).toHaveLength(1);
+    const ledger = readFileSync(at('ledger.jsonl'), 'utf8').trim().split('\n').map((line) => JSON.parse(line) as { kind: string; name?: string });
+    expect(ledger.map((entry) => entry.kind)).toEqual(['run', 'duplicate']);
+    expect(ledger[1]!.name).toBe('px-0101-copy.csv');
   });
 
   it('moves a bad file to rejected/ beside an error file naming line and column', async () => {

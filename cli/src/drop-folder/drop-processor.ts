@@ -29,7 +29,7 @@ export interface ProcessorDeps {
   readonly now?: () => Date;
 }
 
-type SpecOutcome = 'done' | 'waiting' | 'rejected';
+type SpecOutcome = 'ran' | 'ran-before' | 'waiting' | 'rejected';
 
 /** What became of a file: archived (every matching spec ran or had run), rejected, waiting, or no spec matches it. */
 export type FileOutcome = 'archived' | 'rejected' | 'waiting' | 'unmatched';
@@ -92,7 +92,7 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
     const runKey = runKeyOf(watched.sha256, [price.sha256, ...otherChecksums.map((c) => c.sha256)]);
     if (ledger.hasRun(runKey)) {
       logger.info({ file: price.name, spec: watched.name }, 'same spec and same content ran before: not run again');
-      return 'done';
+      return 'ran-before';
     }
     let run;
     try {
@@ -114,7 +114,7 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
       inputs: run.inputs.map(({ name, sha256 }) => ({ name, sha256 })), at: new Date().toISOString(),
     });
     for (const checksum of otherChecksums) if (path.dirname(path.resolve(checksum.path)) === path.resolve(layout.incoming)) used.set(checksum.path, checksum.sha256);
-    return 'done';
+    return 'ran';
   }
 
   async function processPriceFile(file: string, matching: readonly WatchedSpec[], settled: readonly string[]): Promise<FileOutcome> {
@@ -129,6 +129,9 @@ export function createDropProcessor(deps: ProcessorDeps): DropProcessor {
     for (const [other, sha256] of used) if (await exists(other)) await archiveInput(layout, other, sha256, day());
     if (outcomes.includes('rejected')) return 'rejected';
     if (outcomes.includes('waiting')) return 'waiting';
+    if (!outcomes.includes('ran')) {
+      await ledger.append({ kind: 'duplicate', name: price.name, sha256: price.sha256, at: new Date().toISOString() });
+    }
     const target = await archiveInput(layout, file, price.sha256, day());
     logger.info({ file: price.name, archivedTo: path.relative(layout.root, target) }, 'input archived');
     return 'archived';
