@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { errorCodeSchema } from '../contracts/errors.js';
 import { JOB_KINDS, JOB_STATES } from './job.model.js';
 
 export const jobIdParams = z.object({ id: z.string().regex(/^[1-9]\d{0,9}$/, 'a job id').transform(Number) });
@@ -17,7 +16,8 @@ export const doneBody = z.strictObject({ worker, outcome: z.string().max(2000).o
 
 export const failedBody = z.strictObject({
   worker,
-  code: errorCodeSchema.default('INTERNAL'),
+  /** A SCREAMING_SNAKE code, ideally one of the shared error codes; a worker's own codes are kept as sent. */
+  code: z.string().regex(/^[A-Z][A-Z0-9_]{0,63}$/, 'a SCREAMING_SNAKE error code').default('INTERNAL'),
   message: z.string().min(1).max(2000),
 });
 
