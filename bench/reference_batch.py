@@ -4,7 +4,7 @@ practitioner would in numpy and pandas, timed per phase, with the process's peak
 Work: parse the wide daily file (pandas' C reader) and the risk-free file; daily (252/200) and
 monthly (60/36) full-window statistics per security (OLS with pairwise-complete moments, Dimson k = 1
 by batched normal equations, Blume 2/3, Vasicek with the cross-sectional prior); 252-day rolling OLS
-betas ending at every day (pandas rolling cov / var); result CSVs and the rolling-beta CSV
+betas ending at every day (window sums of cumulative sums); result CSVs and the rolling-beta CSV
 (dates x securities). Conventions as in DESIGN.md: daily grid = the market's dates; monthly = last
 price in each calendar month; simple returns between consecutive grid periods; per-period risk-free
 (1 + y)^(1/P) - 1 with y the last yield at or before the end of the previous period.
@@ -162,14 +162,26 @@ def statistics(prices, market, yields, frequency):
 
 
 def rolling_betas(prices, market, yields):
-    """252-day OLS betas ending at every day from the first full window on (pairwise-complete)."""
+    """252-day OLS betas ending at every day from the first full window on (pairwise-complete), from
+    window sums of cumulative sums. Twice as fast here as DataFrame.rolling().cov() / .var(), which
+    loops over the columns; values shifted by their means first, so the sums cancel little."""
     y, m, dates = excess_returns(prices, market, yields, "daily")
     length, minimum = WINDOWS["daily"]
-    security = pd.DataFrame(y, index=dates, columns=prices.columns)
-    paired_market = security * 0.0 + m[:, None]
-    cov = security.rolling(length, min_periods=minimum).cov(paired_market, pairwise=False)
-    var = paired_market.rolling(length, min_periods=minimum).var()
-    return (cov / var).iloc[length:]
+    mask = ~np.isnan(y) & ~np.isnan(m)[:, None]
+    x = np.where(mask, m[:, None] - np.nanmean(m), 0.0)
+    y = np.where(mask, y - np.nanmean(y, axis=0), 0.0)
+
+    def window_sums(values):
+        running = np.cumsum(values, axis=0)
+        return running[length:] - running[:-length]
+
+    n = window_sums(mask.astype(float))
+    sx, sy = window_sums(x), window_sums(y)
+    sxx, sxy = window_sums(x * x), window_sums(x * y)
+    with np.errstate(invalid="ignore", divide="ignore"):
+        beta = (sxy - sx * sy / n) / (sxx - sx * sx / n)
+    beta[n < minimum] = np.nan
+    return pd.DataFrame(beta, index=dates[length:], columns=prices.columns)
 
 
 def write(out, results, rolling):
