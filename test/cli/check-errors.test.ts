@@ -43,7 +43,7 @@ beforeAll(() => {
 
 const check = (...args: string[]) => clino(['check', ...args], { cwd: dir });
 
-describe('clino check on a broken spec', () => {
+describe('clino check on a broken spec', { timeout: 180_000 }, () => {
   it('names line 4, column 14 for a misspelt frequency, and exits 3', async () => {
     const result = await check('bad-schema.yaml');
     expect(result.exitCode).toBe(3);
@@ -58,7 +58,7 @@ describe('clino check on a broken spec', () => {
   });
 });
 
-describe('clino check on broken input files', () => {
+describe('clino check on broken input files', { timeout: 180_000 }, () => {
   it.each([
     ['p-date.csv', 'p-date.csv:4:1 (column date): date "2026-13-31" is not a calendar date (INPUT_BAD_DATE)'],
     ['p-price.csv', 'p-price.csv:3:2 (column A): price "abc" is not a number (INPUT_BAD_PRICE)'],
@@ -82,7 +82,7 @@ describe('clino check on broken input files', () => {
   });
 });
 
-describe('clino run usage mistakes', () => {
+describe('clino run usage mistakes', { timeout: 180_000 }, () => {
   it('names the missing price file with its pattern and exits 4', async () => {
     const result = await clino(['run', 'spec.yaml'], { cwd: dir });
     expect(result.exitCode).toBe(4);

@@ -10,7 +10,7 @@ import { matchesPattern, neededRoles } from '../../cli/src/batch/input-roles.js'
 import { seedDemoDrop } from '../../scripts/demo-drop.js';
 import { ROOT } from './support/clino.js';
 
-describe('scripts/demo-drop.ts', () => {
+describe('scripts/demo-drop.ts', { timeout: 180_000 }, () => {
   it('fills incoming/ of a new drop folder with files every sample spec can run on', () => {
     const folder = path.join(mkdtempSync(path.join(tmpdir(), 'clino-demo-drop-')), 'drop');
     const names = seedDemoDrop(folder);

@@ -28,7 +28,7 @@ afterAll(async () => {
   await db?.drop();
 });
 
-describe('the demo start', () => {
+describe('the demo start', { timeout: 180_000 }, () => {
   it('pushes the four sample specs as the demo analyst, once', async () => {
     expect(await pushDemoSpecs(server.baseUrl, path.join(ROOT, 'samples/specs'))).toEqual([
       'core-monthly revision 1 (new)', 'thin-daily revision 1 (new)', 'unlisted-wacc revision 1 (new)', 'weekly-long revision 1 (new)',

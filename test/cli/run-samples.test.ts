@@ -28,7 +28,7 @@ async function inProcess(name: string) {
   return { spec, sha256, run, specFile };
 }
 
-describe.each(SPECS)('clino run samples/specs/%s.yaml on the demo files', (name) => {
+describe.each(SPECS)('clino run samples/specs/%s.yaml on the demo files', { timeout: 180_000 }, (name) => {
   it('writes the CSV computeRun gives, with the fingerprint beside it', async () => {
     const expected = await inProcess(name);
     const out = path.join(folder, `${name}.csv`);
@@ -42,7 +42,7 @@ describe.each(SPECS)('clino run samples/specs/%s.yaml on the demo files', (name)
   });
 });
 
-describe('repeatability and --json', () => {
+describe('repeatability and --json', { timeout: 180_000 }, () => {
   it('writes byte-identical CSV and fingerprint on a second run of the same spec and files', async () => {
     const specFile = path.join(ROOT, 'samples/specs/core-monthly.yaml');
     const first = path.join(folder, 'again-1.csv');

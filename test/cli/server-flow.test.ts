@@ -40,7 +40,7 @@ afterAll(async () => {
   await db?.drop();
 });
 
-describe('clino with the real server', () => {
+describe('clino with the real server', { timeout: 180_000 }, () => {
   it('stores the server URL and the token read from stdin in a config file of mode 0600', async () => {
     const result = await clino(['login', server.baseUrl], { env, input: `${TOKEN}\n` });
     expect(result.exitCode).toBe(0);

@@ -19,7 +19,7 @@ afterAll(async () => {
   await server.stop();
 });
 
-describe('stopping clino watch', () => {
+describe('stopping clino watch', { timeout: 180_000 }, () => {
   it('finishes the file in hand on SIGTERM and leaves the rest for the next start', async () => {
     const drop = path.join(mkdtempSync(path.join(tmpdir(), 'clino-stop-')), 'drop');
     seedDemoDrop(drop);

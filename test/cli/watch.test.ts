@@ -40,7 +40,7 @@ afterAll(async () => {
   await server.stop();
 });
 
-describe('clino watch', () => {
+describe('clino watch', { timeout: 180_000 }, () => {
   it('keeps a price file waiting in incoming/ until the risk-free file arrives, then runs, posts once and archives both', async () => {
     writeFileSync(at('incoming', 'px-0101.csv'), priceFile(18));
     await eventually(() => watcher.stderr().includes('run waits for its inputs'), 'the run to wait');

@@ -28,7 +28,7 @@ afterAll(async () => {
   await server.stop();
 });
 
-describe('clino work with upload jobs', () => {
+describe('clino work with upload jobs', { timeout: 180_000 }, () => {
   it('runs the spec once the price and risk-free uploads are both in, and reports each job', async () => {
     upload('1', 'rf-0101.csv', riskFreeFile(18));
     upload('2', 'px-0101.csv', priceFile(18));
