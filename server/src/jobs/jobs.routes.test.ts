@@ -44,7 +44,7 @@ describe('the job queue', () => {
     const taken = await claim('other-host').expect(200);
     expect(taken.body).toMatchObject({ id: String(job.id), claimCount: 2 });
     const refused = await machine('post', `/api/jobs/${job.id}/done`).send({ worker: 'slow-host' }).expect(409);
-    expect(refused.body.error.message).toMatch(/other-host/);
+    expect(refused.body.error).toMatchObject({ code: 'JOB_STATE_CONFLICT', message: expect.stringMatching(/other-host/) });
     const done = await machine('post', `/api/jobs/${job.id}/done`).send({ worker: 'other-host', outcome: 'ok' }).expect(200);
     expect(done.body.state).toBe('done');
     await machine('post', `/api/jobs/${job.id}/done`).send({ worker: 'other-host', outcome: 'ok' }).expect(200);

@@ -80,7 +80,7 @@ export async function lockHeldJob(transaction: Transaction, id: number, actor: A
   if (!job) throw new NotFoundError(`No job ${id}`);
   const claimant = claimantOf(actor, worker);
   if (job.claimedBy !== claimant || (job.state !== 'claimed' && job.state !== finalState)) {
-    throw new AppError(409, 'RUN_STATE_CONFLICT', `Job ${id} is ${job.state}${job.claimedBy ? ` and held by ${job.claimedBy}` : ''}, not claimed by ${claimant}`);
+    throw new AppError(409, 'JOB_STATE_CONFLICT', `Job ${id} is ${job.state}${job.claimedBy ? ` and held by ${job.claimedBy}` : ''}, not claimed by ${claimant}`);
   }
   return job;
 }

@@ -83,7 +83,7 @@ describe('people administration', () => {
       .set(CSRF_HEADER, admin.csrf)
       .send({ userName: 'ivy.taken', displayName: 'Other', email: 'o@demo-fund.invalid', role: 'viewer', password: 'other-password-1' })
       .expect(409);
-    expect(res.body.error.code).toBe('VALIDATION_FAILED');
+    expect(res.body.error.code).toBe('CONFLICT');
   });
 
   it('refuses a password shorter than 12 characters, naming the field', async () => {

@@ -25,7 +25,7 @@ export async function listPeople(): Promise<PersonDto[]> {
 }
 
 function userNameTaken(userName: string): AppError {
-  return new AppError(409, 'VALIDATION_FAILED', `The user name ${userName} is taken`, { issues: [{ in: 'body', path: 'userName', message: 'taken' }] });
+  return new AppError(409, 'CONFLICT', `The user name ${userName} is taken`, { issues: [{ in: 'body', path: 'userName', message: 'taken' }] });
 }
 
 export async function createPerson(sequelize: Sequelize, ctx: AuditContext, input: CreatePersonInput, hashRounds: number): Promise<PersonDto> {
@@ -48,7 +48,7 @@ async function keepAnAdmin(user: User, patch: UpdatePersonInput, transaction: Tr
   const losesAdmin = user.role === 'admin' && user.active && ((patch.role !== undefined && patch.role !== 'admin') || patch.active === false);
   if (!losesAdmin) return;
   const activeAdmins = await User.findAll({ attributes: ['id'], where: { role: 'admin', active: true }, transaction, lock: transaction.LOCK.UPDATE });
-  if (activeAdmins.length <= 1) throw new AppError(409, 'VALIDATION_FAILED', 'This is the last active admin: make another person admin first');
+  if (activeAdmins.length <= 1) throw new AppError(409, 'CONFLICT', 'This is the last active admin: make another person admin first');
 }
 
 /**

@@ -36,7 +36,7 @@ export async function distributionListNamed(name: string, transaction?: Transact
 }
 
 function nameTaken(error: unknown, name: string): unknown {
-  return error instanceof UniqueConstraintError ? new AppError(409, 'VALIDATION_FAILED', `A distribution list named ${name} already exists`) : error;
+  return error instanceof UniqueConstraintError ? new AppError(409, 'CONFLICT', `A distribution list named ${name} already exists`) : error;
 }
 
 async function replaceRecipients(list: DistributionList, body: DistributionListBody, transaction: Transaction): Promise<void> {

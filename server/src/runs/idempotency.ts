@@ -40,7 +40,7 @@ export async function oncePerKey(
   const earlier = await IdempotencyRecord.findOne({ where: { scope, idempotencyKey: key }, transaction, lock: transaction.LOCK.UPDATE });
   if (earlier) {
     if (earlier.requestSha256 !== requestSha256) {
-      throw new AppError(409, 'RUN_STATE_CONFLICT', 'This Idempotency-Key was already used with a different request body');
+      throw new AppError(409, 'IDEMPOTENCY_KEY_REUSED', 'This Idempotency-Key was already used with a different request body');
     }
     return { status: earlier.responseStatus, body: earlier.responseBody };
   }

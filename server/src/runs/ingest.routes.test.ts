@@ -55,7 +55,7 @@ describe('the ingest protocol', () => {
   it('refuses an input whose bytes do not hash to the checksum in the path, and stores nothing', async () => {
     const wrong = sha256Hex('something else');
     const res = await machine('put', `/api/inputs/${wrong}`).type('application/octet-stream').send(PRICES.bytes).expect(400);
-    expect(res.body.error).toMatchObject({ code: 'VALIDATION_FAILED', details: { expected: wrong, actual: PRICES.sha256 } });
+    expect(res.body.error).toMatchObject({ code: 'CHECKSUM_MISMATCH', details: { expected: wrong, actual: PRICES.sha256 } });
     expect(await fixture.store.has(wrong)).toBe(false);
     expect(await fixture.store.has(PRICES.sha256)).toBe(false);
   });
@@ -86,7 +86,7 @@ describe('the ingest protocol', () => {
     const runId = await computingRun(fixture, 'ingest-test', specSha, '2026-04-30', [PRICES]);
     await machine('post', `/api/runs/${runId}/results`).set('Idempotency-Key', 'key-a').send(syntheticResults(2)).expect(200);
     const reused = await machine('post', `/api/runs/${runId}/results`).set('Idempotency-Key', 'key-a').send(syntheticResults(4)).expect(409);
-    expect(reused.body.error.code).toBe('RUN_STATE_CONFLICT');
+    expect(reused.body.error.code).toBe('IDEMPOTENCY_KEY_REUSED');
     const again = await machine('post', `/api/runs/${runId}/results`).set('Idempotency-Key', 'key-b').send(syntheticResults(2)).expect(409);
     expect(again.body.error.message).toMatch(/in-review/);
   });

@@ -12,6 +12,8 @@ const redactPaths = [
   'database.password',
   'mail.password',
   'server.sessionSecret',
+  'auth.demoMachineToken',
+  '*.demoMachineToken',
 ];
 
 export function createLogger(level: string, name = 'clinometer'): Logger {

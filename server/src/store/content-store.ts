@@ -82,7 +82,7 @@ export class ContentStore {
     const sha256 = hash.digest('hex');
     if (options.expectedSha256 !== undefined && sha256 !== options.expectedSha256) {
       await rm(tmpPath, { force: true });
-      throw new AppError(400, 'VALIDATION_FAILED', 'The content does not match its sha256', { expected: options.expectedSha256, actual: sha256 });
+      throw new AppError(400, 'CHECKSUM_MISMATCH', 'The content does not match its sha256', { expected: options.expectedSha256, actual: sha256 });
     }
     const target = this.pathOf(sha256);
     await mkdir(path.dirname(target), { recursive: true });
