@@ -120,3 +120,13 @@ ensure_console_build() {
   say "building the console (ng build)"
   (cd "$ROOT" && NG_CLI_ANALYTICS=false npx ng build >&2) || die "console build failed"
 }
+
+# wait_for_health <url>: polls until the server answers 200 (60 s at most).
+wait_for_health() {
+  local i
+  for i in $(seq 1 240); do
+    if node -e 'fetch(process.argv[1]).then((r)=>process.exit(r.ok?0:1),()=>process.exit(1))' "$1" 2>/dev/null; then return 0; fi
+    sleep 0.25
+  done
+  die "the server did not answer $1 within 60 s"
+}
