@@ -21,12 +21,14 @@ export function resultRowsOf(results: readonly SecurityResult[]): ResultRow[] {
 const CHUNK_BYTES = 4 << 20;
 /** Rows formatted per request: small enough to keep memory flat, large enough to keep the slices busy. */
 const BLOCK_ROWS = 64;
+/** Blocks requested before the first is written: each slice always has rows to format. */
+const BLOCKS_AHEAD = 4;
 
 export type RowBlockSource = (from: number, to: number) => Promise<readonly FormattedRows[]>;
 
 /**
  * Header `date,<ids>`, then one line per rolling end: its label and every slice's cells in order.
- * The slices format the next block of rows while this one is written.
+ * The slices format the next blocks of rows while this one is written.
  */
 export async function writeRollingCsv(path: string, ids: readonly string[], labels: readonly string[], blockOf: RowBlockSource): Promise<void> {
   const out = createWriteStream(path);
@@ -49,11 +51,19 @@ export async function writeRollingCsv(path: string, ids: readonly string[], labe
   };
   await put(Buffer.from(`date,${ids.join(',')}\n`));
   const separator = Buffer.from(','), newline = Buffer.from('\n');
-  let next = labels.length > 0 ? blockOf(0, Math.min(BLOCK_ROWS, labels.length)) : null;
-  for (let from = 0; next !== null; from += BLOCK_ROWS) {
-    const parts = await next;
+  const pending: Promise<readonly FormattedRows[]>[] = [];
+  let requested = 0;
+  const requestAhead = (): void => {
+    while (pending.length < BLOCKS_AHEAD && requested < labels.length) {
+      pending.push(blockOf(requested, Math.min(requested + BLOCK_ROWS, labels.length)));
+      requested += BLOCK_ROWS;
+    }
+  };
+  requestAhead();
+  for (let from = 0; pending.length > 0; from += BLOCK_ROWS) {
+    const parts = await pending.shift()!;
+    requestAhead();
     const to = Math.min(from + BLOCK_ROWS, labels.length);
-    next = to < labels.length ? blockOf(to, Math.min(to + BLOCK_ROWS, labels.length)) : null;
     for (let r = 0; r < to - from; r++) {
       await put(Buffer.from(labels[from + r]!));
       for (const part of parts) {

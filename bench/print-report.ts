@@ -46,7 +46,7 @@ const speed = pandas.totalSeconds / ours.totalSeconds;
 const memory = ours.peakRssMb / pandas.peakRssMb;
 const worst = Object.entries(agreement.files).map(([name, part]) => `${name} ${part.worstRelative.toExponential(1)}`).join(', ');
 process.stdout.write([
-  `Benchmark: ${String(ours['securities'])} securities × ${String(ours['days'])} days, ${cpus().length} cores, Clinometer workers: ${String(ours['workers'])}`,
+  `Benchmark: ${String(ours['securities'])} securities × ${String(ours['days'])} days, ${cpus().length} cores, Clinometer threads: ${String(ours['threads'])}`,
   '',
   '| phase | Clinometer (s) | pandas (s) | pandas / Clinometer |',
   '| --- | ---: | ---: | ---: |',

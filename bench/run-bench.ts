@@ -3,7 +3,8 @@
 // Blume and Vasicek; 252-day rolling betas ending at every day for every security; the result CSVs
 // (the contracts' writer) and the rolling-beta CSV (dates × securities). Prints the wall time per
 // phase and the peak RSS (stderr), and writes them as JSON to <out>/clinometer-timing.json.
-// Usage: node --import tsx bench/run-bench.ts --data <dir> --out <dir> [--workers 2]
+// Usage: node --import tsx bench/run-bench.ts --data <dir> --out <dir> [--threads 2]
+// (--threads 2: the main thread and one worker thread each take half the securities.)
 import { mkdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
@@ -26,14 +27,14 @@ const { values } = parseArgs({
   options: {
     data: { type: 'string', default: '.data/bench/data' },
     out: { type: 'string', default: '.data/bench/out/clinometer' },
-    workers: { type: 'string', default: '2' },
+    threads: { type: 'string', default: '2' },
   },
 });
-const workers = Number(values.workers);
+const threads = Number(values.threads);
 const out = values.out;
 await mkdir(out, { recursive: true });
 const clock = new PhaseClock();
-const started = startSlicePool(workers);
+const started = startSlicePool(threads);
 
 let [prices, yields] = await clock.time('parse', () => Promise.all([
   readPriceFile(join(values.data, 'prices-wide.csv'), {
@@ -69,6 +70,6 @@ await clock.time('write results', async () => {
 });
 await pool.close();
 
-const report = clock.report({ engine: 'clinometer', workers: pool.size > 1 ? pool.size : 0, securities: ids.length, days: market.days.length });
+const report = clock.report({ engine: 'clinometer', threads: pool.size, securities: ids.length, days: market.days.length });
 await writeFile(join(out, 'clinometer-timing.json'), `${JSON.stringify(report, null, 2)}\n`);
 process.stderr.write(clock.table('Clinometer'));

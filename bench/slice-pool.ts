@@ -1,5 +1,5 @@
-// The benchmark's slices of securities: run in the main thread (one slice) or in worker threads (one
-// slice each, the price arrays transferred to the worker, not copied). Workers are started before the
+// The benchmark's slices of securities, one per thread: the main thread's own and one per worker
+// thread (the price arrays transferred to the worker, not copied). Workers are started before the
 // input is parsed (their module loading overlaps the parse) and loaded with their slice afterwards.
 // Every slice answers the same phase requests; the pool sends a request to every slice and waits for
 // all the answers.
@@ -27,20 +27,30 @@ export interface StartedPool {
   load(securities: readonly DatedSeries[], market: DatedSeries, yields: YieldSeries): Promise<SlicePool>;
 }
 
-async function request(worker: Worker, message: WorkerRequest, transfer: ArrayBuffer[] = []): Promise<unknown> {
-  const reply = once(worker, 'message');
-  worker.postMessage(message, transfer);
-  const [answer] = await reply;
-  return answer as unknown;
+/** A worker answers its requests in order: each answer settles the oldest request still waiting. */
+interface Thread {
+  readonly worker: Worker;
+  request(message: WorkerRequest, transfer?: ArrayBuffer[]): Promise<unknown>;
 }
 
-async function startWorker(): Promise<Worker> {
+async function startThread(): Promise<Thread> {
   // Node 20 does not pass tsx's loader to a worker whose entry is a .ts file: register it first.
   const entry = JSON.stringify(new URL('./batch-worker.ts', import.meta.url).href);
   const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${entry}); });`;
   const worker = new Worker(bootstrap, { eval: true });
   await once(worker, 'message'); // 'ready': the worker's modules are loaded
-  return worker;
+  const waiting: { resolve(answer: unknown): void; reject(error: Error): void }[] = [];
+  worker.on('message', (answer: unknown) => waiting.shift()?.resolve(answer));
+  worker.on('error', (error: Error) => { for (const request of waiting.splice(0)) request.reject(error); });
+  return {
+    worker,
+    request(message, transfer = []) {
+      return new Promise((resolve, reject) => {
+        waiting.push({ resolve, reject });
+        worker.postMessage(message, transfer);
+      });
+    },
+  };
 }
 
 /** Contiguous, nearly equal slices of the securities, each with the market and the yields. */
@@ -77,19 +87,21 @@ function localAsk(data: SliceData): Ask {
   };
 }
 
-/** One slice in this thread when `workers` ≤ 1; otherwise one worker thread per slice, started now. */
-export function startSlicePool(workers: number): StartedPool {
-  if (workers <= 1) {
-    return { load: (securities, market, yields) => Promise.resolve(poolOf(slices(securities, market, yields, 1).map(localAsk), () => Promise.resolve())) };
-  }
-  const started = Promise.all(Array.from({ length: workers }, startWorker));
+/**
+ * `threads` slices: the first `threads` − 1 in worker threads, started now, and the last in this
+ * thread (which would otherwise only wait). Requests go to the workers first, so they work while
+ * this thread does its own slice.
+ */
+export function startSlicePool(threads: number): StartedPool {
+  const started = Promise.all(Array.from({ length: Math.max(0, threads - 1) }, startThread));
   return {
     async load(securities, market, yields) {
-      const threads = await started;
-      const parts = slices(securities, market, yields, threads.length);
-      await Promise.all(threads.map((worker, s) => request(worker, { phase: 'load', data: parts[s]! }, parts[s]!.prices.map((p) => p.buffer as ArrayBuffer))));
-      const asks = threads.map((worker): Ask => (phase) => request(worker, phase));
-      return poolOf(asks, async () => { await Promise.all(threads.map((worker) => worker.terminate())); });
+      const workers = await started;
+      const parts = slices(securities, market, yields, workers.length + 1);
+      await Promise.all(workers.map((thread, s) => thread.request({ phase: 'load', data: parts[s]! }, parts[s]!.prices.map((p) => p.buffer as ArrayBuffer))));
+      const asks = workers.map((thread): Ask => (phase) => thread.request(phase));
+      asks.push(localAsk(parts[workers.length]!));
+      return poolOf(asks, async () => { await Promise.all(workers.map((thread) => thread.worker.terminate())); });
     },
   };
 }

@@ -3,7 +3,7 @@
 # invented securities × 2,520 days with a market column and a risk-free file, runs the full batch in
 # Clinometer (bench/run-bench.ts) and the same work in numpy/pandas (bench/reference_batch.py), checks
 # that their outputs agree to 1e-9, and prints the table of phase times, the ratio and peak memory.
-# Data and outputs stay under .data/bench/ (ignored by git). Settings: BENCH_WORKERS (default 2),
+# Data and outputs stay under .data/bench/ (ignored by git). Settings: BENCH_THREADS (default 2),
 # BENCH_SECURITIES (3000), BENCH_DAYS (2520). Exits non-zero when the outputs disagree.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
@@ -14,7 +14,7 @@ ensure_python_reference_libraries
 
 SECURITIES="${BENCH_SECURITIES:-3000}"
 DAYS="${BENCH_DAYS:-2520}"
-WORKERS="${BENCH_WORKERS:-2}"
+THREADS="${BENCH_THREADS:-2}"
 DATA="$ROOT/.data/bench/data-${SECURITIES}x${DAYS}"
 OUT="$ROOT/.data/bench/out"
 
@@ -28,9 +28,9 @@ cat "$DATA"/*.csv >/dev/null # both engines start with the files in the page cac
 
 elapsed_since() { awk -v start="$1" -v end="$EPOCHREALTIME" 'BEGIN { printf "%.3f", end - start }'; }
 
-say "Clinometer ($WORKERS worker threads)"
+say "Clinometer ($THREADS threads)"
 start=$EPOCHREALTIME
-node --import tsx bench/run-bench.ts --data "$DATA" --out "$OUT/clinometer" --workers "$WORKERS"
+node --import tsx bench/run-bench.ts --data "$DATA" --out "$OUT/clinometer" --threads "$THREADS"
 ours_seconds=$(elapsed_since "$start")
 
 say "pandas reference"
