@@ -100,8 +100,8 @@ describe('SignIn', () => {
     const page = await openSignIn('/specs');
 
     await fillAndSubmit(page);
-    const request = page.http.expectOne('/api/session');
-    expect(request.request.method).toBe('POST');
+    page.http.expectOne({ method: 'GET', url: '/api/session' }).flush({ principal: null });
+    const request = page.http.expectOne({ method: 'POST', url: '/api/session' });
     expect(request.request.body).toEqual({ userName: 'a.ledger', password: 'correct horse' });
     expect(submitButton(page.fixture).disabled).toBe(true);
     request.flush({});
@@ -115,7 +115,8 @@ describe('SignIn', () => {
     const page = await openSignIn('//elsewhere.example/runs');
 
     await fillAndSubmit(page);
-    page.http.expectOne('/api/session').flush({});
+    page.http.expectOne({ method: 'GET', url: '/api/session' }).flush({ principal: null });
+    page.http.expectOne({ method: 'POST', url: '/api/session' }).flush({});
     await page.fixture.whenStable();
 
     expect(page.navigateByUrl).toHaveBeenCalledWith('/runs');
@@ -126,8 +127,9 @@ describe('SignIn', () => {
 
     await fillAndSubmit(page);
     // RFC 9110 §15.5.2: 401 means the request lacks valid authentication credentials.
+    page.http.expectOne({ method: 'GET', url: '/api/session' }).flush({ principal: null });
     page.http
-      .expectOne('/api/session')
+      .expectOne({ method: 'POST', url: '/api/session' })
       .flush(null, { status: 401, statusText: 'Unauthorized' });
     await page.fixture.whenStable();
 
