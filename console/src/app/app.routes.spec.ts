@@ -1,11 +1,15 @@
 import { TestBed } from '@angular/core/testing';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { Title } from '@angular/platform-browser';
 import { Router } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { appConfig } from './app.config';
+import { answerSessionWith, personWithRole } from './core/auth/session-testing';
 
+/** Opens the console at `url` with an admin signed in, so every area's route can be reached. */
 async function navigate(url: string): Promise<{ root: HTMLElement; router: Router }> {
-  TestBed.configureTestingModule({ providers: appConfig.providers });
+  TestBed.configureTestingModule({ providers: [...appConfig.providers, provideHttpClientTesting()] });
+  await answerSessionWith(personWithRole('admin'));
   const harness = await RouterTestingHarness.create();
   await harness.navigateByUrl(url);
   await harness.fixture.whenStable();

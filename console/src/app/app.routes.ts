@@ -1,4 +1,5 @@
 import type { Routes } from '@angular/router';
+import { signedInGuard } from './core/auth/signed-in-guard';
 import { Shell } from './core/shell/shell';
 
 export const routes: Routes = [
@@ -10,6 +11,7 @@ export const routes: Routes = [
   {
     path: '',
     component: Shell,
+    canActivateChild: [signedInGuard],
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'runs' },
       {

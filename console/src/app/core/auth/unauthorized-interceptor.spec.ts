@@ -3,6 +3,9 @@ import { HttpClient, HttpErrorResponse, provideHttpClient, withInterceptors } fr
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { Router, provideRouter } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { Session } from './session';
+import { SESSION_URL } from './session-api';
+import { personWithRole } from './session-testing';
 import { unauthorizedInterceptor } from './unauthorized-interceptor';
 
 function setUp(): { http: HttpClient; backend: HttpTestingController; navigate: ReturnType<typeof vi.fn> } {
@@ -40,6 +43,20 @@ describe('unauthorizedInterceptor', () => {
 
     expect((await failure(pending)).status).toBe(401);
     expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/' } });
+  });
+
+  it('forgets the signed-in person when a request answers 401', async () => {
+    const { http, backend } = setUp();
+    const session = TestBed.inject(Session);
+    const known = firstValueFrom(session.whenKnown());
+    backend.expectOne(SESSION_URL).flush({ principal: personWithRole('analyst') });
+    await known;
+
+    const pending = firstValueFrom(http.get('/api/specs'));
+    backend.expectOne('/api/specs').flush(null, { status: 401, statusText: 'Unauthorized' });
+    await failure(pending);
+
+    expect(session.person()).toBeNull();
   });
 
   it('leaves a refused sign-in to the sign-in form', async () => {

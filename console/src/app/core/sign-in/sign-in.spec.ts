@@ -2,6 +2,8 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { Router, provideRouter } from '@angular/router';
+import { Session } from '../auth/session';
+import { personWithRole } from '../auth/session-testing';
 import { provideIconFont } from '../icon-font';
 import { SignIn } from './sign-in';
 
@@ -24,6 +26,9 @@ async function openSignIn(returnUrl?: string): Promise<Page> {
   await fixture.whenStable();
   return { fixture, http: TestBed.inject(HttpTestingController), navigateByUrl };
 }
+
+/** What the server answers a successful POST /api/session with (server/src/auth/session.routes.ts). */
+const SIGNED_IN = { principal: personWithRole('analyst') };
 
 function element<T extends Element>(fixture: ComponentFixture<SignIn>, id: string): T {
   const found = (fixture.nativeElement as HTMLElement).querySelector<T>(`[data-testid="${id}"]`);
@@ -104,10 +109,11 @@ describe('SignIn', () => {
     const request = page.http.expectOne({ method: 'POST', url: '/api/session' });
     expect(request.request.body).toEqual({ userName: 'a.ledger', password: 'correct horse' });
     expect(submitButton(page.fixture).disabled).toBe(true);
-    request.flush({});
+    request.flush(SIGNED_IN);
     await page.fixture.whenStable();
 
     expect(page.navigateByUrl).toHaveBeenCalledWith('/specs');
+    expect(TestBed.inject(Session).person()).toEqual(SIGNED_IN.principal);
     page.http.verify();
   });
 
@@ -116,7 +122,7 @@ describe('SignIn', () => {
 
     await fillAndSubmit(page);
     page.http.expectOne({ method: 'GET', url: '/api/session' }).flush({ principal: null });
-    page.http.expectOne({ method: 'POST', url: '/api/session' }).flush({});
+    page.http.expectOne({ method: 'POST', url: '/api/session' }).flush(SIGNED_IN);
     await page.fixture.whenStable();
 
     expect(page.navigateByUrl).toHaveBeenCalledWith('/runs');

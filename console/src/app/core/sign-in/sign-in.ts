@@ -7,7 +7,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { SessionApi } from '../auth/session-api';
+import { Session } from '../auth/session';
 import { errorMessage } from '../http/error-message';
 
 /** Where to go after signing in when no (safe) return address was given. */
@@ -26,7 +26,7 @@ function isConsolePath(url: string | undefined): url is string {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignIn {
-  private readonly session = inject(SessionApi);
+  private readonly session = inject(Session);
   private readonly router = inject(Router);
 
   /** From the `returnUrl` query parameter, set when a request met a 401. */
