@@ -1,6 +1,18 @@
-import type { Routes } from '@angular/router';
+import type { Route, Routes } from '@angular/router';
+import type { AreaPath } from './core/areas';
+import { openToRole } from './core/auth/area-roles';
 import { signedInGuard } from './core/auth/signed-in-guard';
 import { Shell } from './core/shell/shell';
+
+/** Reached only when the area's own route does not match the person's role (see `openToRole`). */
+function notOpenToRole(area: AreaPath): Route {
+  return {
+    path: area,
+    title: 'Not open to your role · Clinometer',
+    data: { area },
+    loadComponent: () => import('./core/no-access/no-access').then((m) => m.NoAccess),
+  };
+}
 
 export const routes: Routes = [
   {
@@ -42,13 +54,17 @@ export const routes: Routes = [
       {
         path: 'people',
         title: 'People · Clinometer',
+        canMatch: [openToRole('people')],
         loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
       },
       {
         path: 'audit',
         title: 'Audit · Clinometer',
+        canMatch: [openToRole('audit')],
         loadChildren: () => import('./audit/audit.routes').then((m) => m.auditRoutes),
       },
+      notOpenToRole('people'),
+      notOpenToRole('audit'),
       {
         path: '**',
         title: 'Not found · Clinometer',

@@ -50,6 +50,13 @@ describe('signedInGuard', () => {
     expect(router.parseUrl(router.url).queryParams).toEqual({ returnUrl: '/runs?state=failed' });
   });
 
+  it('sends a visitor nobody has signed in from a role-restricted area to sign in, not to the refusal', async () => {
+    const { root, router } = await startAt('/audit', signedInAs(null));
+
+    expect(router.url).toBe('/sign-in?returnUrl=%2Faudit');
+    expect(testId(root, 'no-access')).toBeNull();
+  });
+
   it('lets a signed-in person through to the area asked for', async () => {
     const { root, router } = await startAt('/specs', signedInAs(personWithRole('viewer')));
 
