@@ -1,7 +1,9 @@
 import { TestBed } from '@angular/core/testing';
+import { BreakpointObserver, type BreakpointState } from '@angular/cdk/layout';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { Router } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
+import { of } from 'rxjs';
 import { appConfig } from '../../app.config';
 import { Session } from '../auth/session';
 import { SESSION_URL } from '../auth/session-api';
@@ -28,8 +30,18 @@ interface OpenShell {
   backend: HttpTestingController;
 }
 
-async function openShellAs(person: SessionPerson, url = '/runs'): Promise<OpenShell> {
-  TestBed.configureTestingModule({ providers: [...appConfig.providers, provideHttpClientTesting()] });
+/** A screen on which only the media queries for which `matches` answers true hold. */
+function screenWhere(matches: (query: string) => boolean): { provide: typeof BreakpointObserver; useValue: Pick<BreakpointObserver, 'observe'> } {
+  const observe = (query: string | readonly string[]) => {
+    const queries = typeof query === 'string' ? [query] : query;
+    const state: BreakpointState = { matches: queries.some(matches), breakpoints: {} };
+    return of(state);
+  };
+  return { provide: BreakpointObserver, useValue: { observe } };
+}
+
+async function openShellAs(person: SessionPerson, url = '/runs', screen = screenWhere(() => false)): Promise<OpenShell> {
+  TestBed.configureTestingModule({ providers: [...appConfig.providers, provideHttpClientTesting(), screen] });
   await answerSessionWith(person);
   const harness = await RouterTestingHarness.create();
   await harness.navigateByUrl(url);
@@ -172,5 +184,13 @@ describe('Shell', () => {
     const { root } = await openShellAs(personWithRole('supervisor'));
 
     expect(navLabels(root)).toEqual(['Runs', 'Specs', 'Uploads', 'Releases', 'Mailroom', 'Audit']);
+  });
+  it('keeps sign-out on a phone as an icon button that still says "Sign out" to assistive technology', async () => {
+    const { root } = await openShellAs(ADMIN, '/runs', screenWhere((query) => query.includes('max-width')));
+
+    const button = testId(root, 'shell-sign-out');
+    expect(button?.getAttribute('aria-label')).toBe('Sign out');
+    expect(button?.textContent?.trim()).toBe('logout');
+    expect(testId(root, 'shell-person-role')?.textContent?.trim()).toBe('Admin');
   });
 });

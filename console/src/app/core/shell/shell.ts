@@ -17,6 +17,8 @@ import { Cautions } from '../../shared/cautions/cautions';
 
 /** Below this width the navigation slides over the page instead of sitting beside it. */
 const WIDE_LAYOUT = '(min-width: 960px)';
+/** Below this width the toolbar is short of room: sign-out shrinks to an icon. */
+const PHONE_LAYOUT = '(max-width: 599.98px)';
 
 @Component({
   selector: 'clino-shell',
@@ -53,12 +55,13 @@ export class Shell {
   protected readonly signingOut = signal(false);
   /** Why the last sign-out failed, shown under the toolbar until dismissed or signed out. */
   protected readonly signOutFailure = signal<string | null>(null);
-  protected readonly wide = toSignal(
-    inject(BreakpointObserver)
-      .observe(WIDE_LAYOUT)
-      .pipe(map((state) => state.matches)),
-    { initialValue: false },
-  );
+  private readonly breakpoints = inject(BreakpointObserver);
+  protected readonly wide = toSignal(this.breakpoints.observe(WIDE_LAYOUT).pipe(map((state) => state.matches)), {
+    initialValue: false,
+  });
+  protected readonly phone = toSignal(this.breakpoints.observe(PHONE_LAYOUT).pipe(map((state) => state.matches)), {
+    initialValue: false,
+  });
 
   protected signOut(): void {
     this.signingOut.set(true);
