@@ -4,7 +4,7 @@
 # Clinometer (bench/run-bench.ts) and the same work in numpy/pandas (bench/reference_batch.py), checks
 # that their outputs agree to 1e-9, and prints the table of phase times, the ratio and peak memory.
 # Data and outputs stay under .data/bench/ (ignored by git). Settings: BENCH_THREADS (default 2),
-# BENCH_SECURITIES (3000), BENCH_DAYS (2520). Exits non-zero when the outputs disagree.
+# BENCH_REPEAT (3), BENCH_SECURITIES (3000), BENCH_DAYS (2520). Exits non-zero when the outputs disagree.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -15,6 +15,7 @@ ensure_python_reference_libraries
 SECURITIES="${BENCH_SECURITIES:-3000}"
 DAYS="${BENCH_DAYS:-2520}"
 THREADS="${BENCH_THREADS:-2}"
+REPEAT="${BENCH_REPEAT:-3}"
 DATA="$ROOT/.data/bench/data-${SECURITIES}x${DAYS}"
 OUT="$ROOT/.data/bench/out"
 
@@ -28,20 +29,29 @@ cat "$DATA"/*.csv >/dev/null # both engines start with the files in the page cac
 
 elapsed_since() { awk -v start="$1" -v end="$EPOCHREALTIME" 'BEGIN { printf "%.3f", end - start }'; }
 
-say "Clinometer ($THREADS threads)"
-start=$EPOCHREALTIME
-node --import tsx bench/run-bench.ts --data "$DATA" --out "$OUT/clinometer" --threads "$THREADS"
-ours_seconds=$(elapsed_since "$start")
-
-say "pandas reference"
-start=$EPOCHREALTIME
-/usr/bin/python3 bench/reference_batch.py --data "$DATA" --out "$OUT/reference"
-pandas_seconds=$(elapsed_since "$start")
+# The machine is shared: run both sides REPEAT times, alternately; the report takes each side's
+# fastest repetition (and shows the spread).
+for run in $(seq 1 "$REPEAT"); do
+  say "run $run of $REPEAT: Clinometer ($THREADS threads)"
+  start=$EPOCHREALTIME
+  node --import tsx bench/run-bench.ts --data "$DATA" --out "$OUT/clinometer-$run" --threads "$THREADS"
+  elapsed_since "$start" >"$OUT/clinometer-$run/process-seconds"
+  say "run $run of $REPEAT: pandas reference"
+  start=$EPOCHREALTIME
+  /usr/bin/python3 bench/reference_batch.py --data "$DATA" --out "$OUT/reference-$run"
+  elapsed_since "$start" >"$OUT/reference-$run/process-seconds"
+done
 
 say "comparing the outputs"
 agree_status=0
-/usr/bin/python3 bench/compare_outputs.py "$OUT/clinometer" "$OUT/reference" >"$OUT/agreement.json" || agree_status=$?
-node --import tsx bench/print-report.ts "$OUT" "$ours_seconds" "$pandas_seconds"
+/usr/bin/python3 bench/compare_outputs.py "$OUT/clinometer-1" "$OUT/reference-1" >"$OUT/agreement.json" || agree_status=$?
+for run in $(seq 2 "$REPEAT"); do # same inputs, same bytes: then only the first run's large CSVs are kept
+  for file in "$OUT/clinometer-1"/*.csv; do
+    cmp -s "$file" "$OUT/clinometer-$run/$(basename "$file")" || { say "run $run wrote a different $(basename "$file")"; agree_status=1; }
+  done
+  rm -f "$OUT/clinometer-$run/rolling-betas-daily.csv" "$OUT/reference-$run/rolling-betas-daily.csv"
+done
+node --import tsx bench/print-report.ts "$OUT"
 if [ $agree_status -ne 0 ]; then
   say "the outputs disagree: see ${OUT#$ROOT/}/agreement.json"
   exit 1
