@@ -61,6 +61,8 @@ describe('clino with the real server', { timeout: 180_000 }, () => {
     const pushed = await clino(['spec', 'push', specFile], { env });
     expect(pushed.exitCode).toBe(0);
     expect(pushed.stdout).toMatch(/^worked-example revision 1 [0-9a-f]{64}\n$/);
+    // The demo watcher's token has no owner: the push is the machine's, and four eyes will block its release.
+    expect(pushed.stderr).toContain('this machine token acts for no person');
     const again = await clino(['spec', 'push', specFile], { env });
     expect(again.stdout).toMatch(/^worked-example revision 1 [0-9a-f]{64} \(unchanged\)\n$/);
     expect((await clino(['spec', 'list'], { env })).stdout).toMatch(/\nworked-example +1 /);

@@ -5,6 +5,7 @@ import { CliError } from '../errors/cli-error.js';
 const revisionSummary = z.object({
   number: z.number().int(),
   sha256: z.string(),
+  authorKind: z.enum(['person', 'machine']).optional(),
   authorName: z.string(),
   createdAt: z.string(),
 });

@@ -36,10 +36,10 @@ export async function createTestPerson(role: Role, overrides: { userName?: strin
   return { id: user.id, userName, password, role };
 }
 
-/** A machine token stored by its hash; returns the plain value to send as `Authorization: Bearer`. */
-export async function createTestMachineToken(name = 'test-machine'): Promise<{ id: number; value: string }> {
+/** A machine token stored by its hash (with an owner when given); returns the plain value to send as `Authorization: Bearer`. */
+export async function createTestMachineToken(name = 'test-machine', ownerUserId: number | null = null): Promise<{ id: number; value: string }> {
   const value = newMachineTokenValue();
-  const token = await MachineToken.create({ name, tokenSha256: machineTokenSha256(value), createdByUserId: null, lastUsedAt: null, revokedAt: null });
+  const token = await MachineToken.create({ name, tokenSha256: machineTokenSha256(value), createdByUserId: null, ownerUserId, lastUsedAt: null, revokedAt: null });
   return { id: token.id, value };
 }
 

@@ -6,7 +6,8 @@ import { createTestDatabase, type TestDatabase } from '../../../test/support/tes
 import { createApp } from '../app.js';
 import { MachineToken } from '../people/machine-token.model.js';
 import { createLogger } from '../shared/logger.js';
-import { createTestMachineToken } from './auth-test-support.js';
+import { User } from '../people/user.model.js';
+import { createTestMachineToken, createTestPerson } from './auth-test-support.js';
 import { bearerTokenOf } from './machine-tokens.js';
 
 describe('machine tokens on the API', () => {
@@ -23,7 +24,22 @@ describe('machine tokens on the API', () => {
   it('makes the caller a machine principal named by the token', async () => {
     const token = await createTestMachineToken('watcher-a');
     const res = await request(app).get('/api/session').set('Authorization', `Bearer ${token.value}`).expect(200);
-    expect(res.body).toEqual({ principal: { kind: 'machine', id: token.id, name: 'watcher-a' } });
+    expect(res.body).toEqual({ principal: { kind: 'machine', id: token.id, name: 'watcher-a', owner: null } });
+  });
+
+  it('carries the owner of a token that belongs to a person', async () => {
+    const owner = await createTestPerson('analyst');
+    const token = await createTestMachineToken('analyst-pusher', owner.id);
+    const res = await request(app).get('/api/session').set('Authorization', `Bearer ${token.value}`).expect(200);
+    expect(res.body).toEqual({ principal: { kind: 'machine', id: token.id, name: 'analyst-pusher', owner: { id: owner.id, userName: owner.userName, role: 'analyst' } } });
+  });
+
+  it('refuses a token whose owner has been deactivated with 401, naming the owner', async () => {
+    const owner = await createTestPerson('analyst');
+    const token = await createTestMachineToken('left-the-team', owner.id);
+    await User.update({ active: false }, { where: { id: owner.id } });
+    const res = await request(app).get('/api/specs').set('Authorization', `Bearer ${token.value}`).expect(401);
+    expect(res.body.error).toMatchObject({ code: 'UNAUTHENTICATED', message: expect.stringContaining(`belongs to ${owner.userName}, who is inactive`) });
   });
 
   it('answers an unknown token with 401 UNAUTHENTICATED, even on a public route', async () => {

@@ -12,6 +12,25 @@ const WHO: Record<(typeof COLUMNS)[number], string> = {
   machine: 'machine: the clino CLI with a bearer machine token (`Authorization: Bearer <token>`)',
 };
 
+/** The four-eyes rule and how machine tokens take part in it. */
+const FOUR_EYES = [
+  '',
+  '## Four eyes and machine tokens',
+  '',
+  'Nobody releases a run whose spec text they authored (403 `FOUR_EYES`). The authors of a revision\'s text are',
+  'the people who pushed that exact text to the spec: signed in, or through a machine token they own.',
+  '',
+  '- An admin may give a machine token an **owner** (`ownerUserId` on `POST /api/machine-tokens`): an active person',
+  '  whose role may push specs. The token keeps the `machine` column above; a spec it pushes is authored by the',
+  '  owner, and the audit event names both the token and the owner. A token whose owner is deactivated is refused',
+  '  (401), and a push through a token whose owner\'s role may no longer push specs is refused (403 `FORBIDDEN`).',
+  '- A spec pushed by a token **without an owner** (a watcher, a worker) has no author person: nobody can release',
+  '  its runs (403 `FOUR_EYES`) until a person pushes the same text. That push records a new revision with the',
+  '  same text and sha256, authored by the person (an ownerless machine\'s revision is the only one a same-text',
+  '  push repeats); runs already posted on the machine\'s revision then count that person as the author.',
+  '- The demo pushes its sample specs as the demo analyst (a person), so the demo supervisors may release their runs.',
+];
+
 /** The area of a route: its first path segment after /api (`runs`, `people`, ...). */
 function areaOf(route: string): string {
   return /^\S+ \/api\/([^/]+)/.exec(route)?.[1] ?? 'other';
@@ -61,6 +80,7 @@ export function renderRoleMatrixDoc(matrix: Readonly<Record<string, readonly Gra
     '',
     'A person signed in with a role that is not listed gets 403 `FORBIDDEN`; a caller who is not signed in gets',
     '401 `UNAUTHENTICATED`. Writes by a signed-in person also need the `X-XSRF-TOKEN` header (403 `CSRF_REJECTED`).',
+    ...FOUR_EYES,
   ];
   for (const [area, routes] of areas) {
     lines.push('', `## ${area}`, '', `| route | ${COLUMNS.join(' | ')} |`, `| --- | ${COLUMNS.map(() => ':-:').join(' | ')} |`);

@@ -9,7 +9,10 @@ import type { SessionDto } from './session.schemas.js';
 export function sessionOf(req: Request): SessionDto {
   const principal = req.principal;
   if (!principal) return { principal: null };
-  if (principal.kind === 'machine') return { principal: { kind: 'machine', id: principal.tokenId, name: principal.name } };
+  if (principal.kind === 'machine') {
+    const owner = principal.owner ? { id: principal.owner.userId, userName: principal.owner.userName, role: principal.owner.role } : null;
+    return { principal: { kind: 'machine', id: principal.tokenId, name: principal.name, owner } };
+  }
   const displayName = req.user?.displayName ?? principal.userName;
   return { principal: { kind: 'person', id: principal.userId, userName: principal.userName, displayName, role: principal.role } };
 }

@@ -28,6 +28,7 @@ export function initModels(sequelize: Sequelize): void {
   initAuditEvent(sequelize);
 
   MachineToken.belongsTo(User, { as: 'createdBy', foreignKey: 'createdByUserId' });
+  MachineToken.belongsTo(User, { as: 'owner', foreignKey: 'ownerUserId' });
 
   initJob(sequelize);
   initSpec(sequelize);

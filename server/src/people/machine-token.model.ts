@@ -10,17 +10,22 @@ import {
 } from 'sequelize';
 import type { User } from './user.model.js';
 
-/** A bearer token of the clino CLI. Only its sha256 is stored; its value is shown once, at creation. */
+/**
+ * A bearer token of the clino CLI. Only its sha256 is stored; its value is shown once, at creation.
+ * A token with an owner acts for that person where authorship matters (a pushed spec revision).
+ */
 export class MachineToken extends Model<InferAttributes<MachineToken>, InferCreationAttributes<MachineToken>> {
   declare id: CreationOptional<number>;
   declare name: string;
   declare tokenSha256: string;
   declare createdByUserId: ForeignKey<User['id']> | null;
+  declare ownerUserId: ForeignKey<User['id']> | null;
   declare lastUsedAt: Date | null;
   declare revokedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User | null>;
+  declare owner?: NonAttribute<User | null>;
 }
 
 export function initMachineToken(sequelize: Sequelize): void {

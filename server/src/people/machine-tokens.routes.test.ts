@@ -13,8 +13,8 @@ describe('machine token administration', () => {
   let admin: { agent: TestAgent; csrf: string };
   let adminName: string;
 
-  async function createToken(name: string): Promise<{ id: number; value: string }> {
-    const res = await admin.agent.post('/api/machine-tokens').set(CSRF_HEADER, admin.csrf).send({ name }).expect(201);
+  async function createToken(name: string, ownerUserId?: number): Promise<{ id: number; value: string }> {
+    const res = await admin.agent.post('/api/machine-tokens').set(CSRF_HEADER, admin.csrf).send({ name, ownerUserId }).expect(201);
     return { id: res.body.token.id as number, value: res.body.value as string };
   }
 
@@ -82,6 +82,31 @@ describe('machine token administration', () => {
   it('answers an unknown token id with 404 and a malformed one with 400', async () => {
     await admin.agent.delete('/api/machine-tokens/424242').set(CSRF_HEADER, admin.csrf).expect(404);
     await admin.agent.delete('/api/machine-tokens/abc').set(CSRF_HEADER, admin.csrf).expect(400);
+  });
+
+  it('gives a token an owner, shown on the token list and in the audit event; a token without one shows null', async () => {
+    const analyst = await createTestPerson('analyst');
+    const { id } = await createToken('analyst laptop', analyst.id);
+    const { id: ownerless } = await createToken('night worker');
+    const items = (await admin.agent.get('/api/machine-tokens').expect(200)).body.items as { id: number; owner: unknown }[];
+    expect(items.find((t) => t.id === id)?.owner).toEqual({ id: analyst.id, userName: analyst.userName, role: 'analyst' });
+    expect(items.find((t) => t.id === ownerless)?.owner).toBeNull();
+    const rows = await db.sequelize.query<{ after_state: { owner: unknown } }>(
+      "SELECT after_state FROM audit_events WHERE entity_type = 'machine-token' AND action = 'machine-token.create' AND entity_id = ?",
+      { replacements: [String(id)], type: QueryTypes.SELECT },
+    );
+    const after = typeof rows[0]?.after_state === 'string' ? JSON.parse(rows[0].after_state) : rows[0]?.after_state;
+    expect(after.owner).toEqual({ id: analyst.id, userName: analyst.userName, role: 'analyst' });
+  });
+
+  it('refuses an owner who is unknown, inactive, or of a role that may not push specs, naming ownerUserId', async () => {
+    const inactive = await createTestPerson('analyst', { active: false });
+    const viewer = await createTestPerson('viewer');
+    for (const [ownerUserId, reason] of [[424242, 'no person has id 424242'], [inactive.id, 'is inactive'], [viewer.id, 'a role that may not push specs']] as const) {
+      const res = await admin.agent.post('/api/machine-tokens').set(CSRF_HEADER, admin.csrf).send({ name: 'refused', ownerUserId }).expect(400);
+      expect(res.body.error.code).toBe('VALIDATION_FAILED');
+      expect(res.body.error.details.issues[0]).toMatchObject({ in: 'body', path: 'ownerUserId', message: expect.stringContaining(reason) });
+    }
   });
 
   it('refuses an empty token name', async () => {

@@ -6,8 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { computeRun, type ComputedRun } from '../../../cli/src/batch/compute-run.js';
 import { resultsPayload } from '../../../cli/src/batch/delivery-of.js';
 import { fingerprintOf, resultCsvText } from '../../../cli/src/output/result-files.js';
-import { CSRF_HEADER, signedInAgent } from '../auth/auth-test-support.js';
-import { renderFingerprint } from '../contracts/result-fingerprint.js';
+import { createTestMachineToken, CSRF_HEADER, signedInAgent } from '../auth/auth-test-support.js';
+import { renderFingerprint, sha256Hex } from '../contracts/result-fingerprint.js';
 import { loadRunSpec } from '../contracts/run-spec.load.js';
 import { MailMessage } from '../mail/mail-message.model.js';
 import { User } from '../people/user.model.js';
@@ -63,9 +63,9 @@ describe('releases', () => {
   const machine = (method: 'post' | 'put', url: string) => request(fixture.app)[method](url).set('Authorization', fixture.machine);
   const release = (who: SignedIn, runId: string, body: Record<string, unknown> = {}) => who.agent.post(`/api/runs/${runId}/release`).set(CSRF_HEADER, who.csrf).send(body);
 
-  /** The worked example through the ingest protocol, computed by the CLI's engine. */
-  async function ingestWorkedExample(key: string): Promise<string> {
-    const created = await machine('post', '/api/runs').send({ specSha256: specSha, specName: 'worked-example', asOf: computed.asOf, inputs: inputs.map((i) => ({ name: i.name, sha256: i.sha256, size: i.bytes.length })) }).expect(201);
+  /** The worked example through the ingest protocol, computed by the CLI's engine (under another spec name when given). */
+  async function ingestWorkedExample(key: string, spec: { sha256: string; name: string } = { sha256: specSha, name: 'worked-example' }): Promise<string> {
+    const created = await machine('post', '/api/runs').send({ specSha256: spec.sha256, specName: spec.name, asOf: computed.asOf, inputs: inputs.map((i) => ({ name: i.name, sha256: i.sha256, size: i.bytes.length })) }).expect(201);
     for (const sha of created.body.missingInputs as string[]) {
       await machine('put', `/api/inputs/${sha}`).type('application/octet-stream').send((inputs.find((i) => i.sha256 === sha) as InputFile).bytes).expect(201);
     }
@@ -106,6 +106,44 @@ describe('releases', () => {
     const res = await release({ person: author.person, ...promoted }, created.body.runId).expect(403);
     expect(res.body.error.code).toBe('FOUR_EYES');
     await release(supervisor, created.body.runId).expect(201);
+  });
+
+  it('refuses FOUR_EYES to the owner of the machine token that pushed the spec, and lets another supervisor release', async () => {
+    const owner = await fixture.as('analyst');
+    const token = await createTestMachineToken('owned-pusher', owner.person.id);
+    const text = SPEC.replace('name: worked-example', 'name: pushed-by-owned-token');
+    await request(fixture.app).post('/api/specs').set('Authorization', `Bearer ${token.value}`).send({ text }).expect(201);
+    const runId = await ingestWorkedExample('owned-token', { sha256: sha256Hex(text), name: 'pushed-by-owned-token' });
+    await User.update({ role: 'supervisor' }, { where: { id: owner.person.id } });
+    const promoted = await signedInAgent(fixture.app, owner.person);
+    const res = await release({ person: owner.person, ...promoted }, runId).expect(403);
+    expect(res.body.error.code).toBe('FOUR_EYES');
+    await release(supervisor, runId).expect(201);
+  });
+
+  it('refuses FOUR_EYES to everyone for a spec only an ownerless machine token pushed, until a person pushes the same text', async () => {
+    const text = SPEC.replace('name: worked-example', 'name: pushed-by-machine');
+    await machine('post', '/api/specs').send({ text }).expect(201);
+    const runId = await ingestWorkedExample('ownerless-token', { sha256: sha256Hex(text), name: 'pushed-by-machine' });
+    const refused = await release(supervisor, runId).expect(403);
+    expect(refused.body.error.code).toBe('FOUR_EYES');
+    expect(refused.body.error.message).toContain('pushed by the machine token test-worker, which acts for no person: a person must push the same spec text');
+
+    const analyst = await fixture.as('analyst');
+    await pushSpec(fixture, analyst, text);
+    await release(supervisor, runId).expect(201);
+  });
+
+  it('refuses FOUR_EYES to a person who pushed the same text as an ownerless machine did, for a run of the machine\'s revision', async () => {
+    const text = SPEC.replace('name: worked-example', 'name: attested-text');
+    await machine('post', '/api/specs').send({ text }).expect(201);
+    const runId = await ingestWorkedExample('attested', { sha256: sha256Hex(text), name: 'attested-text' });
+    const attesting = await fixture.as('analyst');
+    await pushSpec(fixture, attesting, text);
+    await User.update({ role: 'supervisor' }, { where: { id: attesting.person.id } });
+    const promoted = await signedInAgent(fixture.app, attesting.person);
+    expect((await release({ person: attesting.person, ...promoted }, runId).expect(403)).body.error.code).toBe('FOUR_EYES');
+    await release(supervisor, runId).expect(201);
   });
 
   it('shows the worked example\'s beta on the series line and its CAPM return on the security market line', async () => {

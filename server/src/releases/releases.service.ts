@@ -6,6 +6,7 @@ import { runCsv } from '../runs/run-csv.js';
 import { lockRun, runAuditView } from '../runs/run-states.js';
 import { Run } from '../runs/run.model.js';
 import { AppError, ValidationError } from '../shared/errors.js';
+import { personAuthorsOfText } from '../specs/spec-authorship.js';
 import { SpecRevision } from '../specs/spec-revision.model.js';
 import { Spec } from '../specs/spec.model.js';
 import type { ContentStore } from '../store/content-store.js';
@@ -24,11 +25,19 @@ export interface ReleaseContext {
   requestId: string | null;
 }
 
-/** Four eyes: nobody releases a run whose spec revision they authored. */
-function requireSecondPerson(actor: Actor, revision: SpecRevision): void {
-  if (actor.kind === 'person' && revision.authorKind === 'person' && revision.authorId === actor.id) {
-    throw new AppError(403, 'FOUR_EYES', `You authored revision ${revision.number} of this spec: another supervisor must release this run`);
+/**
+ * Four eyes: nobody releases a run whose spec text they authored. The authors of a revision's text
+ * are the people who pushed that exact text to the spec (directly, or through a machine token they
+ * own). A text that only ownerless machine tokens pushed has no author person, so nobody may release
+ * it until a person pushes the same text.
+ */
+async function requireSecondPerson(actor: Actor, revision: SpecRevision, transaction: Transaction): Promise<void> {
+  const authors = await personAuthorsOfText(revision, transaction);
+  if (authors.length === 0) {
+    throw new AppError(403, 'FOUR_EYES', `Revision ${revision.number} of this spec was pushed by the machine token ${revision.authorName}, which acts for no person: a person must push the same spec text (the console, or clino spec push with a token that has an owner) before anyone can release it`);
   }
+  const own = authors.find((author) => actor.kind === 'person' && author.authorId === actor.id);
+  if (own) throw new AppError(403, 'FOUR_EYES', `You authored revision ${own.number} of this spec, with this text: another supervisor must release this run`);
 }
 
 async function distributionListFor(spec: ResolvedRunSpec, requested: string | undefined, transaction: Transaction): Promise<DistributionList> {
@@ -60,7 +69,7 @@ async function recordRelease(ctx: ReleaseContext, runId: number, request: Releas
     await Spec.findByPk(run.specId, { transaction, lock: transaction.LOCK.UPDATE });
     if (run.state !== 'in-review') throw new AppError(409, 'RUN_NOT_RELEASABLE', `Run ${run.id} is ${run.state}: only a run in review can be released`);
     const revision = (await SpecRevision.findByPk(run.specRevisionId, { transaction })) as SpecRevision;
-    requireSecondPerson(ctx.actor, revision);
+    await requireSecondPerson(ctx.actor, revision, transaction);
     const list = await distributionListFor(revision.parsed as unknown as ResolvedRunSpec, request.distributionList, transaction);
     const csv = await runCsv(run, transaction);
     const stored = await ctx.store.put(csv.csv);

@@ -1,7 +1,8 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEvent } from '../audit/audit-event.model.js';
-import { CSRF_HEADER } from '../auth/auth-test-support.js';
+import { createTestMachineToken, CSRF_HEADER } from '../auth/auth-test-support.js';
+import { User } from '../people/user.model.js';
 import { sha256Hex } from '../contracts/result-fingerprint.js';
 import { specText, startApiFixture, type ApiFixture, type SignedIn } from '../runs/runs-test-support.js';
 
@@ -63,6 +64,35 @@ describe('specs on the server', () => {
     await request(fixture.app).post('/api/specs').set('Authorization', fixture.machine).send({ text: specText('spec-machine') }).expect(201);
     const viewer = await fixture.as('viewer');
     await viewer.agent.post('/api/specs').set(CSRF_HEADER, viewer.csrf).send({ text: specText('spec-viewer') }).expect(403);
+  });
+
+  it('authors a push through a token with an owner as that person, the audit event naming token and person', async () => {
+    const token = await createTestMachineToken('analyst-pusher', analyst.person.id);
+    const res = await request(fixture.app).post('/api/specs').set('Authorization', `Bearer ${token.value}`).send({ text: specText('spec-owned') }).expect(201);
+    expect(res.body.revision).toMatchObject({ authorKind: 'person', authorName: analyst.person.userName });
+    const event = await AuditEvent.findOne({ where: { action: 'spec.push', entityType: 'spec-revision' }, order: [['id', 'DESC']] });
+    expect(event).toMatchObject({ actorKind: 'machine', actorId: token.id, actorName: 'analyst-pusher' });
+    expect(event?.afterState).toMatchObject({ name: 'spec-owned', author: { kind: 'person', id: analyst.person.id, name: analyst.person.userName } });
+  });
+
+  it('records the same text again as a new revision when a person pushes what an ownerless machine pushed, and only then', async () => {
+    const text = specText('spec-attested');
+    const byMachine = await request(fixture.app).post('/api/specs').set('Authorization', fixture.machine).send({ text }).expect(201);
+    expect(byMachine.body.revision).toMatchObject({ number: 1, authorKind: 'machine', authorName: 'test-worker' });
+    const again = await request(fixture.app).post('/api/specs').set('Authorization', fixture.machine).send({ text }).expect(200);
+    expect(again.body).toMatchObject({ created: false, revision: { number: 1 } });
+    const byPerson = await push(text).expect(201);
+    expect(byPerson.body.revision).toMatchObject({ number: 2, sha256: sha256Hex(text), authorKind: 'person', authorName: analyst.person.userName });
+    const machineAfter = await request(fixture.app).post('/api/specs').set('Authorization', fixture.machine).send({ text }).expect(200);
+    expect(machineAfter.body).toMatchObject({ created: false, revision: { number: 2, authorKind: 'person' } });
+  });
+
+  it('refuses FORBIDDEN a push through a token whose owner\'s role may no longer push specs', async () => {
+    const owner = await fixture.as('analyst');
+    const token = await createTestMachineToken('demoted-pusher', owner.person.id);
+    await User.update({ role: 'viewer' }, { where: { id: owner.person.id } });
+    const res = await request(fixture.app).post('/api/specs').set('Authorization', `Bearer ${token.value}`).send({ text: specText('spec-demoted') }).expect(403);
+    expect(res.body.error).toMatchObject({ code: 'FORBIDDEN', message: expect.stringContaining('whose role (viewer) may not push specs') });
   });
 
   it('lists specs with their latest revision', async () => {

@@ -4,6 +4,7 @@ import { recordAudit } from '../audit/audit.service.js';
 import { loadRunSpec, SpecError } from '../contracts/run-spec.load.js';
 import type { Actor } from '../runs/actor.js';
 import { AppError, NotFoundError } from '../shared/errors.js';
+import { specAuthorOf } from './spec-authorship.js';
 import { SpecRevision, type PrincipalKind } from './spec-revision.model.js';
 import { Spec } from './spec.model.js';
 
@@ -151,7 +152,10 @@ function specInvalid(error: SpecError): AppError {
 
 /**
  * Pushes a spec text: validated by the contracts' loader; a new revision when the text differs from
- * the current one, none when it is the same. Audited in the same transaction.
+ * the current one, none when it is the same, except that a person (or a token acting for one) pushing
+ * the text an ownerless machine token pushed makes a new revision of the same text with the person
+ * as author: that is how such a spec becomes releasable (four eyes). Audited in the same transaction,
+ * naming the caller (person or token) and the author.
  */
 export async function pushSpec(sequelize: Sequelize, actor: Actor, text: string, file: string, requestId: string | null): Promise<PushSpecResult> {
   let loaded;
@@ -162,11 +166,13 @@ export async function pushSpec(sequelize: Sequelize, actor: Actor, text: string,
     throw error;
   }
   const { spec: parsed, sha256 } = loaded;
+  const author = specAuthorOf(actor);
   const attempt = (): Promise<PushSpecResult> =>
     sequelize.transaction(async (transaction) => {
       const [spec] = await Spec.findOrCreate({ where: { name: parsed.name }, defaults: { name: parsed.name }, transaction, lock: transaction.LOCK.UPDATE });
       const current = spec.latestNumber > 0 ? await SpecRevision.findOne({ where: { specId: spec.id, number: spec.latestNumber }, transaction }) : null;
-      if (current && current.sha256 === sha256) return { name: spec.name, created: false, revision: revisionSummary(current) };
+      const attests = current !== null && current.sha256 === sha256 && current.authorKind === 'machine' && author.kind === 'person';
+      if (current && current.sha256 === sha256 && !attests) return { name: spec.name, created: false, revision: revisionSummary(current) };
       const revision = await SpecRevision.create(
         {
           specId: spec.id,
@@ -174,14 +180,14 @@ export async function pushSpec(sequelize: Sequelize, actor: Actor, text: string,
           sha256,
           yamlText: text,
           parsed: parsed as unknown as Record<string, unknown>,
-          authorKind: actor.kind,
-          authorId: actor.id,
-          authorName: actor.name,
+          authorKind: author.kind,
+          authorId: author.id,
+          authorName: author.name,
         },
         { transaction },
       );
       await spec.update({ latestNumber: revision.number }, { transaction });
-      const after = { name: spec.name, number: revision.number, sha256 };
+      const after = { name: spec.name, number: revision.number, sha256, author: { kind: author.kind, id: author.id, name: author.name } };
       await recordAudit(transaction, { actor: actor.principal, action: 'spec.push', entityType: 'spec-revision', entityId: revision.id, before: current ? { number: current.number, sha256: current.sha256 } : null, after, requestId });
       return { name: spec.name, created: true, revision: revisionSummary(revision) };
     });

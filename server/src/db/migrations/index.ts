@@ -14,6 +14,7 @@ import * as m0014 from './0014-uploads.js';
 import * as m0015 from './0015-distribution-lists.js';
 import * as m0016 from './0016-releases.js';
 import * as m0017 from './0017-mail-messages.js';
+import * as m0018 from './0018-machine-token-owners.js';
 
 interface MigrationModule {
   up: MigrationFn<MigrationContext>;
@@ -36,4 +37,5 @@ export const migrations: readonly { name: string; module: MigrationModule }[] = 
   { name: '0015-distribution-lists', module: m0015 },
   { name: '0016-releases', module: m0016 },
   { name: '0017-mail-messages', module: m0017 },
+  { name: '0018-machine-token-owners', module: m0018 },
 ];
