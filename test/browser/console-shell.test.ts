@@ -2,7 +2,8 @@
 /// <reference lib="dom.iterable" />
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, type BrowserSession } from '../support/browser.js';
+import { createTestPerson } from '../../server/src/auth/auth-test-support.js';
+import { openBrowser, submitSignIn, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
 import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
 
@@ -29,7 +30,11 @@ describe('the built console in Chromium', () => {
     page.on('response', (r) => {
       if (/\.(woff2?|ttf)(\?|$)/.test(r.url()) && r.ok()) fontResponses.push(r.url());
     });
+    // A signed-out visitor lands on the sign-in page; the shell opens once a person signs in.
+    const viewer = await createTestPerson('viewer');
     await page.goto(`${server.baseUrl}/`);
+    await page.waitForURL(/\/sign-in/);
+    await submitSignIn(page, viewer.userName, viewer.password);
     await page.getByTestId('shell-title').waitFor();
     // Fonts load when first used; the icon font only once the lazy area page has drawn its icons.
     await page

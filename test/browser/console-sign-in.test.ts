@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestPerson, type TestPerson } from '../../server/src/auth/auth-test-support.js';
-import { openBrowser, type BrowserSession } from '../support/browser.js';
+import { openBrowser, submitSignIn, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
 import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
 
@@ -27,9 +27,7 @@ describe('signing in to the console in Chromium', () => {
     const page = await browser.context.newPage();
     await browser.context.clearCookies();
     await page.goto(`${server.baseUrl}/sign-in`);
-    await page.locator('[data-testid="sign-in-username"] input, input[data-testid="sign-in-username"]').first().fill(userName);
-    await page.locator('[data-testid="sign-in-password"] input, input[data-testid="sign-in-password"]').first().fill(password);
-    await page.getByTestId('sign-in-submit').click();
+    await submitSignIn(page, userName, password);
     return page;
   }
 

@@ -1,7 +1,7 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { chromium, type BrowserContext } from 'playwright-core';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 /** Debian's Chromium, headless, with the flags that keep it off the network. */
 export const chromiumArgs = [
@@ -34,4 +34,11 @@ export async function openBrowser(): Promise<BrowserSession> {
       await rm(profile, { recursive: true, force: true });
     },
   };
+}
+
+/** Fills and sends the console's sign-in form on the page (already at /sign-in or redirected there). */
+export async function submitSignIn(page: Page, userName: string, password: string): Promise<void> {
+  await page.locator('[data-testid="sign-in-username"] input, input[data-testid="sign-in-username"]').first().fill(userName);
+  await page.locator('[data-testid="sign-in-password"] input, input[data-testid="sign-in-password"]').first().fill(password);
+  await page.getByTestId('sign-in-submit').click();
 }
