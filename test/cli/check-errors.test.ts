@@ -89,6 +89,12 @@ describe('clino run usage mistakes', { timeout: 180_000 }, () => {
     expect(result.stderr.split('\n')[0]).toBe('clino: the spec needs the price file (pattern p*.csv) (INPUT_MISSING)');
   });
 
+  it('prints the CLI\'s own code in the --json error envelope on stdout (INPUT_MISSING, not a stand-in)', async () => {
+    const result = await clino(['run', 'spec.yaml', '--json'], { cwd: dir });
+    expect(result.exitCode).toBe(4);
+    expect(JSON.parse(result.stdout)).toEqual({ error: { code: 'INPUT_MISSING', message: 'the spec needs the price file (pattern p*.csv)' } });
+  });
+
   it('refuses an unknown option with exit 2', async () => {
     const result = await clino(['run', 'spec.yaml', '--bogus'], { cwd: dir });
     expect(result.exitCode).toBe(2);

@@ -1,11 +1,10 @@
 // The error the CLI throws on purpose: a code, a message for people, an optional hint, and the exit
-// code main.ts will set. Codes are the shared SCREAMING_SNAKE codes, plus a few that only the CLI
-// raises (usage mistakes, a server out of reach, no stored token).
+// code main.ts will set. Codes are the shared SCREAMING_SNAKE codes, including those only the CLI
+// raises (CLI_ONLY_ERROR_CODES: usage mistakes, a server out of reach, no stored token...).
 import type { ErrorCode } from '../../../server/src/contracts/errors.js';
 import { EXIT, type ExitCode } from './exit-codes.js';
 
-export type CliOnlyCode = 'USAGE' | 'SERVER_UNREACHABLE' | 'NOT_LOGGED_IN' | 'INPUT_MISSING' | 'INTERRUPTED';
-export type CliErrorCode = ErrorCode | CliOnlyCode;
+export type CliErrorCode = ErrorCode;
 
 export interface CliErrorOptions {
   readonly hint?: string;

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { CLI_ONLY_ERROR_CODES, errorEnvelopeSchema } from '../../../server/src/contracts/errors.js';
 import { SpecError } from '../../../server/src/contracts/run-spec.load.js';
 import { InputError } from '../inputs/input-error.js';
 import { CliError } from './cli-error.js';
@@ -33,6 +34,21 @@ describe('the one error handler', () => {
     expect(capture(new CliError('SPEC_UNKNOWN', 'no')).code).toBe(EXIT.spec);
     expect(capture(new CliError('RUN_NOT_FOUND', 'no')).code).toBe(EXIT.refused);
     expect(capture(new CliError('USAGE', 'bad', { hint: 'try this' })).stderr).toBe('clino: bad (USAGE)\nhint: try this\n');
+  });
+
+  it('puts the CLI\'s own codes into the --json envelope as they are, a valid shared envelope', () => {
+    for (const code of CLI_ONLY_ERROR_CODES) {
+      const { stdout } = capture(new CliError(code, `probe ${code}`, { details: { probe: true } }), true);
+      const envelope: unknown = JSON.parse(stdout);
+      expect(envelope).toEqual({ error: { code, message: `probe ${code}`, details: { probe: true } } });
+      expect(errorEnvelopeSchema.safeParse(envelope).success).toBe(true);
+    }
+  });
+
+  it('gives an input file not named (INPUT_MISSING) exit 4 and its own code under --json', () => {
+    const { code, stdout } = capture(new CliError('INPUT_MISSING', 'the spec needs the price file'), true);
+    expect(code).toBe(EXIT.input);
+    expect(JSON.parse(stdout).error.code).toBe('INPUT_MISSING');
   });
 
   it('answers an unexpected error with exit 1 and, under --json, the error envelope on stdout', () => {

@@ -1,6 +1,6 @@
 // The one error handler: turns whatever reached the top into lines on stderr (each file problem as
 // `file:line:column reason`), the error envelope on stdout under --json, and an exit code.
-import { errorEnvelope, isErrorCode, type ErrorCode } from '../../../server/src/contracts/errors.js';
+import { errorEnvelope, type ErrorCode } from '../../../server/src/contracts/errors.js';
 import { SpecError, formatSpecProblem } from '../../../server/src/contracts/run-spec.load.js';
 import { InputError } from '../inputs/input-error.js';
 import { CliError, exitCodeOf } from './cli-error.js';
@@ -14,7 +14,7 @@ export interface ErrorOutput {
 }
 
 interface Described {
-  readonly code: string;
+  readonly code: ErrorCode;
   readonly lines: readonly string[];
   readonly exitCode: ExitCode;
   readonly message: string;
@@ -39,18 +39,10 @@ function describe(error: unknown): Described {
   return { code: 'INTERNAL', lines: [`clino: internal error: ${message} (INTERNAL)`], exitCode: EXIT.internal, message };
 }
 
-/** The shared code for the envelope: CLI-only codes travel as INTERNAL with the real code in details. */
-function envelopeCode(code: string): ErrorCode {
-  return isErrorCode(code) ? code : code.startsWith('INPUT_') ? 'INPUT_UNREADABLE' : 'INTERNAL';
-}
-
 export function handleError(error: unknown, output: ErrorOutput): ExitCode {
   const described = describe(error);
   for (const line of described.lines) output.stderr(`${line}\n`);
-  if (output.json) {
-    const code = envelopeCode(described.code);
-    const details = code === described.code ? described.details : { code: described.code, detail: described.details };
-    output.stdout(`${JSON.stringify(errorEnvelope(code, described.message, details))}\n`);
-  }
+  // Every code is a shared one (the CLI's own among them), so the envelope carries it as it is.
+  if (output.json) output.stdout(`${JSON.stringify(errorEnvelope(described.code, described.message, described.details))}\n`);
   return described.exitCode === EXIT.internal && described.code !== 'INTERNAL' ? exitCodeOf(described.code) : described.exitCode;
 }

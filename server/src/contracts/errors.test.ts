@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ERROR_CODES, INPUT_ERROR_CODES, errorEnvelope, errorEnvelopeSchema, isErrorCode } from './errors.js';
+import { CLI_ONLY_ERROR_CODES, ERROR_CODES, INPUT_ERROR_CODES, errorEnvelope, errorEnvelopeSchema, isErrorCode } from './errors.js';
 
 describe('error codes', () => {
   it('are unique SCREAMING_SNAKE strings', () => {
@@ -11,10 +11,19 @@ describe('error codes', () => {
     for (const code of ['SPEC_INVALID', 'SPEC_UNKNOWN', 'INPUT_UNREADABLE', 'RUN_NOT_RELEASABLE']) expect(ERROR_CODES).toContain(code);
   });
 
-  it('group the input readers\' codes', () => {
+  it('group the input readers\' codes, without the CLI\'s INPUT_MISSING (a file not given is not a file rejected)', () => {
     expect(INPUT_ERROR_CODES.length).toBeGreaterThan(0);
     expect(INPUT_ERROR_CODES.every((code) => code.startsWith('INPUT_'))).toBe(true);
     expect(INPUT_ERROR_CODES).toContain('INPUT_FLAT_MARKET');
+    expect(INPUT_ERROR_CODES).not.toContain('INPUT_MISSING');
+  });
+
+  it('include the codes only the CLI raises, so its --json envelope is a valid shared one', () => {
+    expect([...CLI_ONLY_ERROR_CODES].sort()).toEqual(['INPUT_MISSING', 'INTERRUPTED', 'NOT_LOGGED_IN', 'SERVER_UNREACHABLE', 'USAGE']);
+    for (const code of CLI_ONLY_ERROR_CODES) {
+      expect(ERROR_CODES).toContain(code);
+      expect(errorEnvelopeSchema.safeParse(errorEnvelope(code, 'from the CLI')).success).toBe(true);
+    }
   });
 
   it('recognise only their own strings', () => {

@@ -1,6 +1,15 @@
 import { z } from 'zod';
 
 /**
+ * Codes only the clino CLI raises, about its own situation (a usage mistake, a server it cannot reach,
+ * no stored token, an input file not given, Ctrl-C). They never come from the server; they are shared
+ * codes so that `clino --json` prints them in the same error envelope as the server's.
+ */
+export const CLI_ONLY_ERROR_CODES = ['USAGE', 'SERVER_UNREACHABLE', 'NOT_LOGGED_IN', 'INPUT_MISSING', 'INTERRUPTED'] as const;
+
+export type CliOnlyErrorCode = (typeof CLI_ONLY_ERROR_CODES)[number];
+
+/**
  * Every error code Clinometer's server, CLI and console exchange. Codes are SCREAMING_SNAKE strings,
  * never numbers; the message beside a code is for people and may change, the code may not.
  */
@@ -41,13 +50,15 @@ export const ERROR_CODES = [
   'TOO_MANY_REQUESTS',
   'PAYLOAD_TOO_LARGE',
   'INTERNAL',
+  // The CLI's own: never from the server (see CLI_ONLY_ERROR_CODES)
+  ...CLI_ONLY_ERROR_CODES,
 ] as const;
 
 export type ErrorCode = (typeof ERROR_CODES)[number];
 
-/** The input-reader codes: a run that fails with one of these moves its file to `rejected/`. */
-export const INPUT_ERROR_CODES = ERROR_CODES.filter((code): code is Extract<ErrorCode, `INPUT_${string}`> =>
-  code.startsWith('INPUT_'),
+/** The input-reader codes: a run that fails with one of these moves its file to `rejected/` (INPUT_MISSING, a file not given, is not one). */
+export const INPUT_ERROR_CODES = ERROR_CODES.filter((code): code is Exclude<Extract<ErrorCode, `INPUT_${string}`>, CliOnlyErrorCode> =>
+  code.startsWith('INPUT_') && !(CLI_ONLY_ERROR_CODES as readonly string[]).includes(code),
 );
 
 export function isErrorCode(value: unknown): value is ErrorCode {

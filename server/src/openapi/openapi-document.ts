@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ERROR_CODES } from '../contracts/errors.js';
+import { CLI_ONLY_ERROR_CODES, ERROR_CODES } from '../contracts/errors.js';
 import { roleMatrix } from '../auth/role-matrix.js';
 import type { ApiOperation, Produces } from './api-operation.js';
 import { DELIVERY_OPERATIONS } from './delivery.operations.js';
@@ -91,10 +91,12 @@ export function buildOpenApiDocument(version: string): JsonSchema {
     const path = openApiPath(operation.path);
     paths[path] = { ...paths[path], [operation.method.toLowerCase()]: operationObject(operation) };
   }
+  // The server's answers never carry the codes only the CLI raises.
+  const serverCodes = ERROR_CODES.filter((code) => !(CLI_ONLY_ERROR_CODES as readonly string[]).includes(code));
   const errorEnvelope = {
     type: 'object',
     required: ['error'],
-    properties: { error: { type: 'object', required: ['code', 'message'], properties: { code: { type: 'string', enum: [...ERROR_CODES] }, message: { type: 'string' }, details: {} } } },
+    properties: { error: { type: 'object', required: ['code', 'message'], properties: { code: { type: 'string', enum: serverCodes }, message: { type: 'string' }, details: {} } } },
   };
   return {
     openapi: '3.1.0',

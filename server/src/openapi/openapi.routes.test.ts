@@ -2,11 +2,16 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { registeredRoutes } from '../auth/route-inventory.js';
 import { roleMatrix } from '../auth/role-matrix.js';
+import { CLI_ONLY_ERROR_CODES } from '../contracts/errors.js';
 import { startApiFixture, type ApiFixture } from '../runs/runs-test-support.js';
 import { openApiPath } from './openapi-document.js';
 
 type Operation = { parameters: { name: string; in: string }[]; 'x-roles': string[]; responses: Record<string, unknown> };
-type Document = { openapi: string; paths: Record<string, Record<string, Operation>> };
+type Document = {
+  openapi: string;
+  paths: Record<string, Record<string, Operation>>;
+  components: { schemas: { ErrorEnvelope: { properties: { error: { properties: { code: { enum: string[] } } } } } } };
+};
 
 describe('GET /api/docs', () => {
   let fixture: ApiFixture;
@@ -24,6 +29,12 @@ describe('GET /api/docs', () => {
 
   it('is an OpenAPI 3 document', () => {
     expect(document.openapi).toMatch(/^3\.\d+\.\d+$/);
+  });
+
+  it('lists the server\'s error codes in the error envelope, and none of those only the CLI raises', () => {
+    const codes = document.components.schemas.ErrorEnvelope.properties.error.properties.code.enum;
+    expect(codes).toEqual(expect.arrayContaining(['FOUR_EYES', 'SPEC_UNKNOWN', 'VALIDATION_FAILED']));
+    expect(codes.filter((code) => (CLI_ONLY_ERROR_CODES as readonly string[]).includes(code))).toEqual([]);
   });
 
   it('describes every API route the app registers (walking the Express router stack)', () => {
