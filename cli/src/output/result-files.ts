@@ -1,7 +1,7 @@
 // The local result files of a run: the CSV (written only by the contracts' writer) and its companion
 // `<out>.fingerprint` (spec sha256 and input checksums). Same spec and files, same bytes.
 import { renderResultCsv, resultRecords } from '../../../server/src/contracts/result-csv.js';
-import { renderFingerprint, type Fingerprint } from '../../../server/src/contracts/result-fingerprint.js';
+import { fingerprintFileName, renderFingerprint, type Fingerprint } from '../../../server/src/contracts/result-fingerprint.js';
 import type { ResolvedRunSpec } from '../../../server/src/contracts/run-spec.schema.js';
 import type { ComputedRun } from '../batch/compute-run.js';
 import { writeFileAtomic } from './atomic-write.js';
@@ -15,7 +15,7 @@ export function resultCsvText(spec: ResolvedRunSpec, run: ComputedRun): string {
 }
 
 export function fingerprintFileOf(out: string): string {
-  return `${out}.fingerprint`;
+  return fingerprintFileName(out);
 }
 
 export async function writeResultFiles(out: string, spec: ResolvedRunSpec, specSha256: string, run: ComputedRun): Promise<void> {

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { fingerprintSha256, renderFingerprint, sha256Hex } from './result-fingerprint.js';
+import { fingerprintFileName, fingerprintSha256, renderFingerprint, sha256Hex } from './result-fingerprint.js';
 
 const A = 'a'.repeat(64);
 const B = 'b'.repeat(64);
@@ -49,5 +49,13 @@ describe('renderFingerprint', () => {
   it('refuses an input name that would break the line format', () => {
     expect(() => renderFingerprint({ specSha256: A, inputs: [{ name: 'a\nspec x', sha256: B }] })).toThrow(/control character/);
     expect(() => renderFingerprint({ specSha256: A, inputs: [{ name: '', sha256: B }] })).toThrow(/empty/);
+  });
+});
+
+describe('fingerprintFileName', () => {
+  it('appends .fingerprint to the CSV\'s name or path, keeping .csv, as clino run --out and the release mail both name it', () => {
+    expect(fingerprintFileName('worked-example-2026-10-30.csv')).toBe('worked-example-2026-10-30.csv.fingerprint');
+    expect(fingerprintFileName('/srv/out/results.csv')).toBe('/srv/out/results.csv.fingerprint');
+    expect(fingerprintFileName('report')).toBe('report.fingerprint');
   });
 });

@@ -2,7 +2,8 @@ import { createHash } from 'node:crypto';
 import { compareSecurityCodes } from './result-csv.js';
 
 /**
- * The fingerprint travels beside a result CSV (file `<name>.fingerprint.txt`): the spec's sha256
+ * The fingerprint travels beside a result CSV (file `<csv file name>.fingerprint`, see
+ * fingerprintFileName: `clino run --out` writes it, a release mails it): the spec's sha256
  * and every input's name and sha256. It ties each released number to the spec revision and the
  * exact input files. Format, one entry per line, `\n` line ends, inputs sorted by name (UTF-8
  * byte order) then checksum:
@@ -27,6 +28,15 @@ const SHA256_HEX = /^[0-9a-f]{64}$/;
 const CONTROL = /[\u0000-\u001f\u007f]/;
 
 export const FINGERPRINT_HEADER = 'clinometer-fingerprint 1';
+
+/**
+ * The name of the fingerprint file beside a result CSV: the CSV's own name (or path) with
+ * `.fingerprint` appended, `report.csv` → `report.csv.fingerprint`. One rule for the file
+ * `clino run --out` writes and the attachment of a release mail.
+ */
+export function fingerprintFileName(csvFile: string): string {
+  return `${csvFile}.fingerprint`;
+}
 
 function checkSha256(value: string, what: string): void {
   if (!SHA256_HEX.test(value)) throw new Error(`${what} is not a lowercase sha256 hex digest: ${JSON.stringify(value.slice(0, 80))}`);

@@ -1,3 +1,4 @@
+import { fingerprintFileName } from '../contracts/result-fingerprint.js';
 import { RELEASE_CAUTIONS } from './release-cautions.js';
 
 export interface ReleaseFacts {
@@ -25,7 +26,7 @@ export interface ReleaseMessage {
 
 /** The release mail's subject and plain-text body: the facts, the fingerprint, then the cautions. */
 export function composeReleaseMessage(facts: ReleaseFacts): ReleaseMessage {
-  const fingerprintName = facts.csvName.replace(/\.csv$/, '.fingerprint.txt');
+  const fingerprintName = fingerprintFileName(facts.csvName);
   const lines = [
     `Clinometer release ${facts.releaseId}: ${facts.specName} as of ${facts.asOf}`,
     '',

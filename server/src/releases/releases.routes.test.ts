@@ -178,7 +178,9 @@ describe('releases', () => {
     const csvAttachment = parsed.attachments.find((a) => a.filename === 'worked-example-2026-10-30.csv');
     expect(Buffer.compare(csvAttachment?.content as Buffer, bytesOf(stored))).toBe(0);
     const fingerprint = renderFingerprint(fingerprintOf(specSha, computed));
-    expect(parsed.attachments.find((a) => a.filename === 'worked-example-2026-10-30.fingerprint.txt')?.content.toString('utf8')).toBe(fingerprint);
+    // The same name rule as clino run --out: <csv name>.fingerprint.
+    expect(parsed.attachments.find((a) => a.filename === 'worked-example-2026-10-30.csv.fingerprint')?.content.toString('utf8')).toBe(fingerprint);
+    expect(parsed.text).toContain('also attached as worked-example-2026-10-30.csv.fingerprint');
     for (const line of fingerprint.trimEnd().split('\n')) expect(parsed.text).toContain(line);
     for (const caution of RELEASE_CAUTIONS) expect(parsed.text?.replace(/\s+/g, ' ')).toContain(caution);
 
