@@ -3,8 +3,10 @@
 // afresh from Debian's python3-statsmodels (0.13.5 here) and python3-pandas (1.5.3 here) — the exact
 // versions come back in the script's JSON and are printed with the results. The script implements
 // DESIGN.md's sampling, returns, risk-free and window conventions on its own, in pandas; our side is
-// computeRun (readers, engine, batch glue) on the same files. Every statistic of every security must agree to
-// relative 1e-9 or absolute 1e-12, whichever is looser; p-values to absolute 1e-10.
+// computeRun (readers, engine, batch glue) on the same files. Every statistic of every security must
+// agree to relative 1e-9 or absolute 1e-12, whichever is looser; p-values to absolute 1e-10. The 95%
+// intervals use statsmodels' standard errors with scipy's t quantile refined by one Newton step, as
+// scipy 1.10's t.ppf alone is good to about 1e-9 only (see the script).
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
