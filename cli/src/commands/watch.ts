@@ -52,7 +52,7 @@ export function watchCommand(deps: CommandDeps): Command {
     .option('--settle-ms <ms>', 'a file counts as written once its size is stable this long', positiveIntegerOption, 2000)
     .option('--retry-ms <ms>', 'first wait before posting again to an unreachable server (doubles)', positiveIntegerOption, 2000)
     .option('--retry-max-ms <ms>', 'longest wait between posting attempts', positiveIntegerOption, 300_000)
-    .option('--rescan-seconds <s>', 'look at waiting files and refresh the specs this often', positiveIntegerOption, 60)
+    .option('--rescan-seconds <s>', 'look at waiting files, refresh the specs and deliver runs left in outbox/ this often', positiveIntegerOption, 60)
     .option('--once', 'process the files in incoming/ and the outbox once, then end')
     .action(async (folder: string, options: WatchOptions, command: Command) => {
       const context = await openContext(deps, command.optsWithGlobals());
@@ -65,10 +65,13 @@ export function watchCommand(deps: CommandDeps): Command {
         return;
       }
       const watcher = startDropWatcher(layout, processor, context.logger, { settleMs: options.settleMs, rescanMs: options.rescanSeconds * 1000 });
+      // Runs spooled into outbox/ by `clino run --post --outbox` are delivered on the same rhythm.
+      const outboxRescan = setInterval(() => void courier.rescan(), options.rescanSeconds * 1000);
       await watcher.ready;
       context.logger.info('watcher ready');
       const signal = await deps.stopRequested();
       context.logger.info({ signal }, 'stopping: finishing the current file; queued files stay in incoming/');
+      clearInterval(outboxRescan);
       await watcher.close();
       await courier.stop();
       context.logger.info('stopped');

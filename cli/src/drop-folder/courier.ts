@@ -21,6 +21,11 @@ export interface Courier {
   spool(delivery: Delivery): Promise<void>;
   /** Delivers every pending item now; resolves when the pass is over. */
   flush(): Promise<void>;
+  /**
+   * Delivers items another process left in the outbox (`clino run --post --outbox`), unless a retry
+   * is already scheduled: that retry delivers them, and the backoff stands.
+   */
+  rescan(): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -104,6 +109,9 @@ export function createCourier(layout: DropLayout, client: ServerClient, logger: 
       if (timer === null) await flush();
     },
     flush,
+    rescan() {
+      return stopped || timer !== null ? pass : flush();
+    },
     async stop() {
       stopped = true;
       if (timer !== null) clearTimeout(timer);

@@ -30,11 +30,12 @@ const itemSchema = z.object({
   }),
 });
 
-function itemPath(layout: DropLayout, key: string): string {
+function itemPath(layout: Pick<DropLayout, 'outbox'>, key: string): string {
   return path.join(layout.outbox, `${key}.json`);
 }
 
-export async function writeOutboxItem(layout: DropLayout, delivery: Delivery, attempts = 0): Promise<OutboxItem> {
+/** Writes (or rewrites) the item of a delivery; only the outbox folder is needed (`clino run --post` spools there too). */
+export async function writeOutboxItem(layout: Pick<DropLayout, 'outbox'>, delivery: Delivery, attempts = 0): Promise<OutboxItem> {
   const file = itemPath(layout, delivery.key);
   await writeFileAtomic(file, `${JSON.stringify({ version: 1, attempts, delivery })}\n`);
   return { file, delivery, attempts };

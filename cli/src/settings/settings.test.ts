@@ -29,6 +29,15 @@ describe('settings resolve flags > environment > config file > defaults', () => 
     expect([withFlags.serverUrl, withFlags.logLevel, withFlags.sources.serverUrl]).toEqual(['http://flag.invalid:3', 'error', 'flag']);
   });
 
+  it('takes the outbox folder from --outbox over CLINO_OUTBOX, as an absolute path, and none by default', async () => {
+    const dir = await configDir();
+    expect((await resolveSettings({}, { CLINO_CONFIG_DIR: dir })).outbox).toBeUndefined();
+    const fromEnv = await resolveSettings({}, { CLINO_CONFIG_DIR: dir, CLINO_OUTBOX: 'drop/outbox' });
+    expect([fromEnv.outbox, fromEnv.sources.outbox]).toEqual([path.resolve('drop/outbox'), 'environment']);
+    const fromFlag = await resolveSettings({ outbox: '/srv/drop/outbox' }, { CLINO_CONFIG_DIR: dir, CLINO_OUTBOX: 'drop/outbox' });
+    expect([fromFlag.outbox, fromFlag.sources.outbox]).toEqual(['/srv/drop/outbox', 'flag']);
+  });
+
   it('refuses a server URL that is not http or https, naming where it came from', async () => {
     const attempt = resolveSettings({}, { CLINO_CONFIG_DIR: await configDir(), CLINO_SERVER_URL: 'ftp://x.invalid' });
     await expect(attempt).rejects.toThrow('the server URL "ftp://x.invalid" from the environment is not valid');

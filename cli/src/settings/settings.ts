@@ -1,5 +1,6 @@
 // The one place settings resolve: command-line flags > environment (CLINO_*) > the user's config file
 // > defaults. Commands receive the resolved object and never read process.env themselves.
+import path from 'node:path';
 import { z } from 'zod';
 import { CliError } from '../errors/cli-error.js';
 import { configFilePath, readConfigFile } from './config-file.js';
@@ -14,15 +15,19 @@ export interface Settings {
   /** The machine token, or undefined when none is configured anywhere. */
   readonly token: string | undefined;
   readonly logLevel: LogLevel;
+  /** Where `clino run --post` leaves a run the server could not take (an absolute path), or undefined: then it fails. */
+  readonly outbox: string | undefined;
   readonly configFile: string;
   /** Where each value came from, for `--log-level debug` and error hints. */
-  readonly sources: Readonly<Record<'serverUrl' | 'token' | 'logLevel', 'flag' | 'environment' | 'config file' | 'default'>>;
+  readonly sources: Readonly<Record<'serverUrl' | 'token' | 'logLevel' | 'outbox', 'flag' | 'environment' | 'config file' | 'default'>>;
 }
 
 /** What the global options of `clino` can set. */
 export interface SettingFlags {
   readonly server?: string;
   readonly logLevel?: string;
+  /** `clino run --outbox <folder>`. */
+  readonly outbox?: string;
 }
 
 const serverUrlSchema = z.url({ protocol: /^https?$/ });
@@ -59,11 +64,13 @@ export async function resolveSettings(flags: SettingFlags, env: NodeJS.ProcessEn
     [['flag', nonEmpty(flags.logLevel)], ['environment', nonEmpty(env['CLINO_LOG_LEVEL'])], ['config file', file.logLevel]],
     'info',
   );
+  const [outbox, outboxSource] = pick<string | undefined>([['flag', nonEmpty(flags.outbox)], ['environment', nonEmpty(env['CLINO_OUTBOX'])]], undefined);
   return Object.freeze({
     serverUrl: checked(serverUrlSchema, rawUrl, 'the server URL', urlSource).replace(/\/+$/, ''),
     token,
     logLevel: checked(logLevelSchema, rawLevel, 'the log level', levelSource),
+    outbox: outbox === undefined ? undefined : path.resolve(outbox),
     configFile,
-    sources: { serverUrl: urlSource, token: tokenSource, logLevel: levelSource },
+    sources: { serverUrl: urlSource, token: tokenSource, logLevel: levelSource, outbox: outboxSource },
   });
 }
