@@ -14,7 +14,7 @@ afterAll(async () => {
   await rm(dir, { recursive: true, force: true });
 });
 
-async function records(text: string): Promise<{ header: readonly string[]; rows: [readonly string[], number][] }> {
+async function records(text: string | Buffer): Promise<{ header: readonly string[]; rows: [readonly string[], number][] }> {
   const file = join(dir, `f${Math.random().toString(36).slice(2)}.csv`);
   await writeFile(file, text);
   const seen: { header: readonly string[]; rows: [readonly string[], number][] } = { header: [], rows: [] };
@@ -41,6 +41,39 @@ describe('CSV records', () => {
     const error = await records('date,x\n"2026-01-30","a\nb"\n2026-02-27\n').catch((e: unknown) => e);
     expect(error).toBeInstanceOf(InputError);
     expect([(error as InputError).line, (error as InputError).column]).toEqual([4, 2]);
+  });
+
+  it('reads a file larger than the 1 MiB stream chunk, records and multi-byte text straddling chunk ends', async () => {
+    // RFC 4180 2.6 (CRLF inside quotes); a BOM first (RFC 3629 section 6); line numbers counted here.
+    const lines = ['\uFEFFdate,a,note'];
+    const expected: [string[], number][] = [];
+    let line = 2;
+    for (let i = 0; i < 90_000; i++) {
+      const quoted = i % 7 === 3;
+      const note = quoted ? `é "${i}"\r\nsuite` : `é${i}`;
+      lines.push(`d${i},${i}.5,${quoted ? `"${note.replaceAll('"', '""')}"` : note}`);
+      expected.push([[`d${i}`, `${i}.5`, note], line]);
+      line += quoted ? 2 : 1;
+    }
+    const text = `${lines.join('\r\n')}\r\n`;
+    expect(Buffer.byteLength(text)).toBeGreaterThan(2 * (1 << 20));
+    const seen = await records(text);
+    expect(seen.header).toEqual(['date', 'a', 'note']);
+    expect(seen.rows.length).toBe(expected.length);
+    expect(seen.rows).toEqual(expected);
+  });
+
+  it('names the line and field of a misplaced quote past the first 1 MiB chunk', async () => {
+    const rows = Array.from({ length: 80_000 }, (_, i) => `d${i},${i}.25,${i === 70_000 ? '5"6' : '7'}`);
+    const error = await records(`date,a,b\n${rows.join('\n')}\n`).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(InputError);
+    expect([(error as InputError).code, (error as InputError).line, (error as InputError).column]).toEqual(['INPUT_NOT_CSV', 70_002, 3]);
+  });
+
+  it('names the line a quote never closed opens on, after quoted records spanning lines', async () => {
+    const error = await records('date,a\r\n"d1","x\r\ny"\r\nd2,"open\r\nd3,1\r\n').catch((e: unknown) => e);
+    expect([(error as InputError).code, (error as InputError).line, (error as InputError).column]).toEqual(['INPUT_NOT_CSV', 4, 2]);
+    expect((error as InputError).reason).toBe('a quoted field is never closed');
   });
 
   it('refuses a delimiter that is a quote, a line break, a letter, a digit or longer than one character', () => {

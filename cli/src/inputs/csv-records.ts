@@ -1,16 +1,17 @@
 // Streams a CSV file record by record with the physical line each record starts on. Strict per
 // INPUT-RULES.md: UTF-8 (BOM skipped), CRLF or LF, RFC 4180 quoting, every row as many fields as the
-// header, blank lines only at the end. Records are handed to the visitor as they are parsed, so a
-// large file is never held in memory as text or as rows. Line numbers are physical lines counted
-// here (csv-parse counts a CRLF inside quotes as two): a record starts on the line after the
-// previous one ended and spans one line plus the line breaks inside its quoted fields.
+// header, blank lines only at the end. Records are handed to the visitor as they are tokenised, so a
+// large file is never held in memory as text or as rows. The tokeniser (csv-tokeniser.ts, our own:
+// csv-parse took most of the parse time, see there) reports the line breaks inside each record; a
+// record starts on the line after the previous one ended and spans one line plus those breaks.
 import { createReadStream } from 'node:fs';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { CsvError, parse } from 'csv-parse';
+import { StringDecoder } from 'node:string_decoder';
 import { InputError } from './input-error.js';
 import { ByteFault, createUtf8Guard } from './utf8-guard.js';
 import { locateByte } from './byte-location.js';
+import { CsvQuoteError, CsvTokeniser } from './csv-tokeniser.js';
 
 export interface CsvDialect {
   /** One character, e.g. `,` `;` `|` or a tab. */
@@ -36,18 +37,10 @@ interface RecordTracker {
   rows: number;
 }
 
-/** Line breaks inside a record's fields: a CRLF or a lone LF counts once. */
-function breaksInside(fields: readonly string[]): number {
-  let breaks = 0;
-  for (const field of fields) {
-    for (let at = field.indexOf('\n'); at !== -1; at = field.indexOf('\n', at + 1)) breaks++;
-  }
-  return breaks;
-}
-
-function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, fields: string[]): void {
+/** `breaksInside`: LF characters inside the record's fields (a CRLF counts once). */
+function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, fields: string[], breaksInside: number): void {
   const line = state.lastEndLine + 1;
-  state.lastEndLine = line + breaksInside(fields);
+  state.lastEndLine = line + breaksInside;
   if (isBlank(fields)) {
     if (state.pendingBlankLine === 0) state.pendingBlankLine = line;
     return;
@@ -70,10 +63,10 @@ function handleRecord(file: string, visitor: CsvVisitor, state: RecordTracker, f
   visitor.row(fields, line);
 }
 
-function csvProblem(file: string, error: CsvError, state: RecordTracker): InputError {
-  const unclosed = error.code === 'CSV_QUOTE_NOT_CLOSED';
+function csvProblem(file: string, error: CsvQuoteError, state: RecordTracker): InputError {
+  const unclosed = error.kind === 'unclosed';
   const line = state.lastEndLine + 1;
-  const column = Number(error['column'] ?? 0) + 1;
+  const column = error.field + 1;
   const reason = unclosed ? 'a quoted field is never closed' : 'a quote is misplaced (RFC 4180: quotes enclose a whole field)';
   return new InputError({ code: 'INPUT_NOT_CSV', file, line, column, reason });
 }
@@ -97,29 +90,50 @@ export function checkDelimiter(delimiter: string): void {
   }
 }
 
-/** Reads `file`, calling the visitor for the header and each data row, or throws an InputError. */
-export async function visitCsv(file: string, dialect: CsvDialect, visitor: CsvVisitor): Promise<void> {
-  checkDelimiter(dialect.delimiter);
-  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, pendingBlankLine: 0, rows: 0 };
-  const parser = parse({ bom: true, delimiter: dialect.delimiter, relax_column_count: true });
-  const sink = new Writable({
-    objectMode: true,
-    highWaterMark: 1024,
-    write(fields: string[], _encoding, callback) {
+/** A byte sink that decodes the (already checked) UTF-8, skips a leading BOM and feeds the tokeniser. */
+function tokenisingSink(tokeniser: CsvTokeniser): Writable {
+  const decoder = new StringDecoder('utf8');
+  let started = false;
+  const feed = (text: string): void => {
+    if (!started && text.length > 0) {
+      started = true;
+      tokeniser.push(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+    } else if (text.length > 0) tokeniser.push(text);
+  };
+  return new Writable({
+    write(chunk: Buffer, _encoding, callback) {
       try {
-        handleRecord(file, visitor, state, fields);
+        feed(decoder.write(chunk));
+        callback();
+      } catch (error) {
+        callback(error as Error);
+      }
+    },
+    final(callback) {
+      try {
+        feed(decoder.end());
+        tokeniser.end();
         callback();
       } catch (error) {
         callback(error as Error);
       }
     },
   });
+}
+
+/** Reads `file`, calling the visitor for the header and each data row, or throws an InputError. */
+export async function visitCsv(file: string, dialect: CsvDialect, visitor: CsvVisitor): Promise<void> {
+  checkDelimiter(dialect.delimiter);
+  const state: RecordTracker = { headerLength: 0, lastEndLine: 0, pendingBlankLine: 0, rows: 0 };
+  const tokeniser = new CsvTokeniser(dialect.delimiter, (fields, breaksInside) => {
+    handleRecord(file, visitor, state, fields, breaksInside);
+  });
   try {
-    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), parser, sink);
+    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), tokenisingSink(tokeniser));
   } catch (error) {
     if (error instanceof InputError) throw error;
     if (error instanceof ByteFault) throw await byteProblem(file, error, dialect);
-    if (error instanceof CsvError) throw csvProblem(file, error, state);
+    if (error instanceof CsvQuoteError) throw csvProblem(file, error, state);
     throw unreadable(file, error as NodeJS.ErrnoException);
   }
   if (state.headerLength === 0) {
