@@ -17,8 +17,20 @@ export function studentTUpperTail(t: number, df: number): number {
   return tCdf(-t, df);
 }
 
-/** The q with P(T ≤ q) = p for T ~ t(df), 0 < p < 1. */
+/**
+ * The q with P(T ≤ q) = p for T ~ t(df), 0 < p < 1. A run asks for the same few (p, df) pairs
+ * thousands of times (one per security), so answers are kept: about 10 µs each to compute.
+ */
 export function studentTQuantile(p: number, df: number): number {
   if (!(p > 0 && p < 1 && df > 0)) return Number.NaN;
-  return tQuantile(p, df);
+  const key = `${p}:${df}`;
+  let q = quantiles.get(key);
+  if (q === undefined) {
+    if (quantiles.size >= 10_000) quantiles.clear();
+    q = tQuantile(p, df);
+    quantiles.set(key, q);
+  }
+  return q;
 }
+
+const quantiles = new Map<string, number>();
