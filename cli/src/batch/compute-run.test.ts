@@ -1,4 +1,4 @@
-// computeRun on the shared reference's worked example (/work/shared/reference/WORKED-EXAMPLE.md):
+// computeRun on the shared reference's worked example (../shared/reference/WORKED-EXAMPLE.md):
 // the two input files of test/fixtures/worked-example/ through the real readers, the spec in
 // test/cli/fixtures/worked-example.yaml. Expected values are the worked example's table (checked
 // there against statsmodels OLS to 1e-12) and formulas from FORMULAS.md worked by hand in comments.

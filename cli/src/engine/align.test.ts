@@ -1,4 +1,4 @@
-// The worked example of /work/shared/reference/WORKED-EXAMPLE.md reproduced column by column from
+// The worked example of ../shared/reference/WORKED-EXAMPLE.md reproduced column by column from
 // its two input files (test/fixtures/worked-example/), read through the real readers. The table's
 // values are given to 10 significant digits, so they are compared with a relative tolerance of 1e-9.
 import { join } from 'node:path';

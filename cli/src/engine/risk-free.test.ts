@@ -1,5 +1,5 @@
 // Risk-free rules from DESIGN.md "Risk-free". Rate values: the worked example in
-// /work/shared/reference/WORKED-EXAMPLE.md (3.55% a year → 0.002911263007 a month) and arithmetic.
+// ../shared/reference/WORKED-EXAMPLE.md (3.55% a year → 0.002911263007 a month) and arithmetic.
 import { describe, expect, it } from 'vitest';
 import { dayNumberOfIso } from './calendar-date.js';
 import { perPeriodRate, perPeriodRates, yieldsUsed } from './risk-free.js';

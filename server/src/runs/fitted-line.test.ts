@@ -13,7 +13,7 @@ describe('fitLine', () => {
   });
 
   it('reproduces the worked example\'s beta and alpha from its eight excess-return pairs', () => {
-    // Source: /work/shared/reference/WORKED-EXAMPLE.md, monthly grid table (returns minus per-period r_f)
+    // Source: ../shared/reference/WORKED-EXAMPLE.md, monthly grid table (returns minus per-period r_f)
     // and its results table: beta 1.19590747062, alpha 0.00393217903536 (checked there against statsmodels).
     const rows: [number, number, number][] = [
       [-0.007547169811, -0.01491101491, 0.002790116491],
