@@ -28,7 +28,7 @@ ensure_debian_package() {
   if [ ! -f /var/lib/apt/.clinometer-updated ]; then
     apt-get update -qq >&2 && touch /var/lib/apt/.clinometer-updated
   fi
-  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >&2 \
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >&2 \
     || die "apt-get install $* failed"
 }
 
