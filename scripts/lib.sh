@@ -28,7 +28,9 @@ ensure_debian_package() {
   if [ ! -f /var/lib/apt/.clinometer-updated ]; then
     apt-get update -qq >&2 && touch /var/lib/apt/.clinometer-updated
   fi
+  # A package list from an earlier day may name files the mirror no longer has: refresh once, retry.
   DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >&2 \
+    || { apt-get update -qq >&2 && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >&2; } \
     || die "apt-get install $* failed"
 }
 
