@@ -13,7 +13,7 @@ import { serverSpecSource } from '../drop-folder/spec-source.js';
 import type { ServerClient } from '../transport/server-client.js';
 import { lastReleasedBetas } from '../transport/prior-betas.js';
 import type { CommandContext } from '../command-context.js';
-import { workLoop, type WorkerOptions } from '../work/worker-loop.js';
+import { workLoop, type WorkerOptions } from '../worker/worker-loop.js';
 import { positiveIntegerOption } from './option-parsers.js';
 
 interface WorkOptions {
