@@ -1,8 +1,7 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { createApp } from '../../server/src/app.js';
-import { createLogger } from '../../server/src/shared/logger.js';
 import type { TestDatabase } from './test-database.js';
+import { appOver } from './test-app.js';
 
 export interface RunningServer {
   baseUrl: string;
@@ -11,7 +10,7 @@ export interface RunningServer {
 
 /** The real app on a free loopback port, over a test database. */
 export async function startServer(db: TestDatabase): Promise<RunningServer> {
-  const app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+  const app = appOver(db);
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });

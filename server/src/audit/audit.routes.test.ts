@@ -1,10 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
-import { createApp } from '../app.js';
 import { createTestPerson, signedInAgent, type TestAgent } from '../auth/auth-test-support.js';
-import { createLogger } from '../shared/logger.js';
 import { AuditEvent } from './audit-event.model.js';
 import { recordAudit } from './audit.service.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 interface Item {
   id: number;
@@ -27,7 +26,7 @@ describe('the audit trail', () => {
 
   beforeAll(async () => {
     db = await createTestDatabase();
-    const app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    const app = appOver(db);
     supervisor = (await signedInAgent(app, await createTestPerson('supervisor'))).agent;
     // Five probe events at known instants, written out of order.
     const at = (iso: string, action: string, actorName: string, entityId: string) =>
@@ -85,7 +84,7 @@ describe('recordAudit inside the caller’s transaction', () => {
   let db: TestDatabase;
   beforeAll(async () => {
     db = await createTestDatabase();
-    createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    appOver(db);
   });
   afterAll(async () => {
     await db.drop();

@@ -4,8 +4,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
-import { createLogger } from '../shared/logger.js';
 import { anonymousAgent, createTestPerson, CSRF_HEADER, signedInAgent, type TestPerson } from './auth-test-support.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 describe('CSRF protection of cookie-authenticated writes', () => {
   let db: TestDatabase;
@@ -14,7 +14,7 @@ describe('CSRF protection of cookie-authenticated writes', () => {
   const body = () => ({ userName: `csrf.probe.${Math.random().toString(36).slice(2, 8)}`, displayName: 'Probe', email: 'probe@test.invalid', role: 'viewer', password: 'probe-password-1' });
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
     admin = await createTestPerson('admin');
   });
   afterAll(async () => {

@@ -5,17 +5,17 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { MachineToken } from '../people/machine-token.model.js';
-import { createLogger } from '../shared/logger.js';
 import { User } from '../people/user.model.js';
 import { createTestMachineToken, createTestPerson } from './auth-test-support.js';
 import { bearerTokenOf } from './machine-tokens.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 describe('machine tokens on the API', () => {
   let db: TestDatabase;
   let app: ReturnType<typeof createApp>;
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
   });
   afterAll(async () => {
     await db.drop();

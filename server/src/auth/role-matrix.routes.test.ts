@@ -6,11 +6,11 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
-import { createLogger } from '../shared/logger.js';
 import { anonymousAgent, createTestMachineToken, createTestPerson, CSRF_HEADER, signedInAgent, type TestAgent } from './auth-test-support.js';
 import { ROLES } from './principal.js';
 import { roleMatrix, type Grantee } from './role-matrix.js';
 import { registeredRoutes } from './route-inventory.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 type Caller = { name: Grantee | 'unauthenticated'; send(method: string, url: string): request.Test };
 
@@ -41,7 +41,7 @@ describe('the role matrix on the real app', () => {
 
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
     for (const role of ROLES) {
       const { agent, csrf } = await signedInAgent(app, await createTestPerson(role));
       callers.push(viaAgent(role, agent, csrf));

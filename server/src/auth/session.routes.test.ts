@@ -5,6 +5,7 @@ import { createTestDatabase, type TestDatabase } from '../../../test/support/tes
 import { createApp } from '../app.js';
 import { createLogger } from '../shared/logger.js';
 import { anonymousAgent, createTestPerson, CSRF_HEADER, signedInAgent, type TestPerson } from './auth-test-support.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 function setCookie(res: request.Response, name: string): string | undefined {
   const header = res.headers['set-cookie'] as unknown;
@@ -22,7 +23,7 @@ describe('signing in and out', () => {
   let analyst: TestPerson;
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
     analyst = await createTestPerson('analyst');
   });
   afterAll(async () => {
@@ -107,7 +108,7 @@ describe('session cookie flags', () => {
   let person: TestPerson;
   beforeAll(async () => {
     db = await createTestDatabase();
-    createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    appOver(db);
     person = await createTestPerson('supervisor');
   });
   afterAll(async () => {
@@ -159,7 +160,7 @@ describe('sign-in throttling', () => {
   let app: ReturnType<typeof createApp>;
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
   });
   afterAll(async () => {
     await db.drop();

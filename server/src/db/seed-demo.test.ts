@@ -9,6 +9,7 @@ import { DEMO_PEOPLE } from '../people/demo-people.js';
 import { ensureDemoMachineToken } from '../people/demo-machine-token.js';
 import { createLogger } from '../shared/logger.js';
 import { seedDemo } from './seed-demo.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 describe('the demo seed', () => {
   let db: TestDatabase;
@@ -18,7 +19,7 @@ describe('the demo seed', () => {
 
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
     await seedDemo(db.sequelize, createLogger('silent'), { ...auth(), demoMachineToken: firstValue });
   });
   afterAll(async () => {
@@ -81,7 +82,7 @@ describe('the demo seed without a given token value', () => {
   let db: TestDatabase;
   beforeAll(async () => {
     db = await createTestDatabase();
-    createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    appOver(db);
   });
   afterAll(async () => {
     await db.drop();

@@ -4,6 +4,7 @@ import { createTestDatabase, type TestDatabase } from '../../../test/support/tes
 import { createApp } from '../app.js';
 import { createSequelize } from '../db/sequelize.js';
 import { createLogger } from '../shared/logger.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 describe('GET /api/health', () => {
   let db: TestDatabase;
@@ -15,7 +16,7 @@ describe('GET /api/health', () => {
   });
 
   it('reports the database as connected when MariaDB answers', async () => {
-    const app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    const app = appOver(db);
     const res = await request(app).get('/api/health').expect(200);
     expect(res.body).toEqual({ status: 'ok', database: 'connected' });
   });
@@ -30,7 +31,7 @@ describe('GET /api/health', () => {
   });
 
   it('answers an unknown API path with the error envelope', async () => {
-    const app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    const app = appOver(db);
     const res = await request(app).get('/api/no-such-thing').expect(404);
     expect(res.body).toEqual({ error: { code: 'NOT_FOUND', message: 'No route for GET /no-such-thing' } });
   });

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { createTestPerson, CSRF_HEADER, signedInAgent, type TestAgent } from '../auth/auth-test-support.js';
-import { createLogger } from '../shared/logger.js';
+import { appOver } from '../../../test/support/test-app.js';
 
 describe('machine token administration', () => {
   let db: TestDatabase;
@@ -20,7 +20,7 @@ describe('machine token administration', () => {
 
   beforeAll(async () => {
     db = await createTestDatabase();
-    app = createApp({ settings: db.settings, sequelize: db.sequelize, logger: createLogger('silent') });
+    app = appOver(db);
     const person = await createTestPerson('admin');
     adminName = person.userName;
     admin = await signedInAgent(app, person);
