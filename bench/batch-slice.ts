@@ -1,8 +1,8 @@
 // The benchmark's work on one slice of the securities, the same in the main thread or in a worker:
 // align on the grid, full-window statistics with the OLS and the Dimson (k = 1) base estimators,
 // rolling OLS betas ending at every period, and the rolling betas formatted as CSV cells. Glue only:
-// every number comes from cli/src/engine/; every cell from the contracts' number format.
-import { formatNumberCell } from '../server/src/contracts/result-csv.js';
+// every number comes from cli/src/engine/; every cell from the contracts' number format (written as bytes).
+import { MAX_NUMBER_CELL_BYTES, writeNumberCell } from '../server/src/contracts/number-bytes.js';
 import { alignReturns } from '../cli/src/engine/align.js';
 import type { AlignedSample } from '../cli/src/engine/align.js';
 import type { RiskFreeSource, YieldSeries } from '../cli/src/engine/risk-free.js';
@@ -83,8 +83,8 @@ function statisticsOf(aligned: AlignedSample, frequency: Frequency, window: Wind
   };
 }
 
-/** Cells of one row are at most 25 bytes (shortest round-trip doubles) plus a comma. */
-const MAX_CELL_BYTES = 26;
+/** A cell and its comma. */
+const MAX_CELL_BYTES = MAX_NUMBER_CELL_BYTES + 1;
 
 function formatColumns(columns: readonly Float64Array[], from: number, to: number): FormattedRows {
   const rows = Math.max(0, to - from);
@@ -94,8 +94,7 @@ function formatColumns(columns: readonly Float64Array[], from: number, to: numbe
   for (let r = 0; r < rows; r++) {
     for (let k = 0; k < columns.length; k++) {
       if (k > 0) bytes[position++] = 0x2c; // ','
-      const cell = formatNumberCell(columns[k]![from + r]!);
-      for (let i = 0; i < cell.length; i++) bytes[position++] = cell.charCodeAt(i); // ASCII only
+      position = writeNumberCell(bytes, position, columns[k]![from + r]!);
     }
     offsets[r + 1] = position;
   }
