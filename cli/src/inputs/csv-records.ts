@@ -23,6 +23,13 @@ export interface CsvVisitor {
   header(names: readonly string[]): void;
   /** A data row with exactly as many fields as the header (untrimmed); `line` is 1-based. */
   row(fields: readonly string[], line: number): void;
+  /**
+   * Optional fast path: a data row as bytes[start, end) — one physical line without a quote or its
+   * line break, after the header. Read it and answer true only when it has as many fields as the
+   * header and every one is read; answer false (having stored nothing) to have the row tokenised as
+   * text and given to row(), which then names any problem.
+   */
+  rowBytes?(bytes: Uint8Array, start: number, end: number, line: number): boolean;
 }
 
 function isBlank(fields: readonly string[]): boolean {
@@ -90,10 +97,73 @@ export function checkDelimiter(delimiter: string): void {
   }
 }
 
-/** A byte sink that decodes the (already checked) UTF-8, skips a leading BOM and feeds the tokeniser. */
-function tokenisingSink(tokeniser: CsvTokeniser): Writable {
+const LF = 10;
+const CR = 13;
+const QUOTE = 34;
+/**
+ * The byte path is given up for the rest of a file once it has left more than this many rows to the
+ * text path and taken fewer than four times as many (a file of padded or quoted cells, say).
+ */
+const GIVE_UP_AFTER_REFUSALS = 64;
+
+/**
+ * The visitor's byte path over the whole lines of `chunk` from `from`, while it takes them: answers
+ * where it stopped (the start of the first line it left to the text path, or of an incomplete line).
+ */
+function rowsFromBytes(chunk: Buffer, from: number, recordBreak: '\n' | '\r\n', state: RecordTracker, visitor: CsvVisitor): number {
+  const rowBytes = visitor.rowBytes!.bind(visitor);
+  let start = from;
+  let quote = chunk.indexOf(QUOTE, start);
+  for (;;) {
+    const lf = chunk.indexOf(LF, start);
+    if (lf === -1 || (quote !== -1 && quote < lf)) return start;
+    let end = lf;
+    if (recordBreak === '\r\n') {
+      if (lf === start || chunk[lf - 1] !== CR) return start;
+      end = lf - 1;
+    }
+    const line = state.lastEndLine + 1;
+    if (!rowBytes(chunk, start, end, line)) return start;
+    state.lastEndLine = line;
+    state.rows++;
+    start = lf + 1;
+    if (quote !== -1 && quote < start) quote = chunk.indexOf(QUOTE, start);
+  }
+}
+
+/**
+ * A byte sink that decodes the (already checked) UTF-8, skips a leading BOM and feeds the tokeniser.
+ * With a visitor that reads rows from bytes, whole lines go to it instead while no record is half
+ * read, once the header is in and no blank line is pending; the rest goes to the tokeniser as text.
+ */
+function tokenisingSink(tokeniser: CsvTokeniser, state: RecordTracker, visitor: CsvVisitor): Writable {
   const decoder = new StringDecoder('utf8');
   let started = false;
+  let refused = 0;
+  let taken = 0;
+  let bytesGivenUp = false;
+  /** Whole lines to the byte path while it can take them, any other line to the tokeniser as text. */
+  const feedLines = (chunk: Buffer): void => {
+    let from = 0;
+    while (from < chunk.length) {
+      const recordBreak = state.headerLength > 0 && state.pendingBlankLine === 0 ? tokeniser.idleBreak() : null;
+      if (recordBreak !== null && !bytesGivenUp) {
+        const rowsBefore = state.rows;
+        from = rowsFromBytes(chunk, from, recordBreak, state, visitor);
+        taken += state.rows - rowsBefore;
+        if (from === chunk.length) return;
+        if (chunk.indexOf(LF, from) !== -1) { // a whole row left to the text path
+          refused++;
+          bytesGivenUp = refused > GIVE_UP_AFTER_REFUSALS && refused * 4 > taken;
+        }
+      }
+      // The decoder holds no partial character after a LF. Once the byte path is given up, all the rest.
+      const lf = bytesGivenUp ? -1 : chunk.indexOf(LF, from);
+      const next = lf === -1 ? chunk.length : lf + 1;
+      feed(decoder.write(chunk.subarray(from, next)));
+      from = next;
+    }
+  };
   const feed = (text: string): void => {
     if (!started && text.length > 0) {
       started = true;
@@ -103,7 +173,8 @@ function tokenisingSink(tokeniser: CsvTokeniser): Writable {
   return new Writable({
     write(chunk: Buffer, _encoding, callback) {
       try {
-        feed(decoder.write(chunk));
+        if (visitor.rowBytes === undefined || bytesGivenUp) feed(decoder.write(chunk));
+        else feedLines(chunk);
         callback();
       } catch (error) {
         callback(error as Error);
@@ -129,7 +200,7 @@ export async function visitCsv(file: string, dialect: CsvDialect, visitor: CsvVi
     handleRecord(file, visitor, state, fields, breaksInside);
   });
   try {
-    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), tokenisingSink(tokeniser));
+    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createUtf8Guard(), tokenisingSink(tokeniser, state, visitor));
   } catch (error) {
     if (error instanceof InputError) throw error;
     if (error instanceof ByteFault) throw await byteProblem(file, error, dialect);

@@ -9,7 +9,8 @@
 // - a quote opens a field only as its first character; inside quotes `""` is one quote and a
 //   closing quote must be followed by the delimiter, the record break or the end of the text;
 // - a line break at the very end does not start an empty record.
-// The caller strips a byte order mark; the tokeniser sees text only.
+// The caller strips a byte order mark; the tokeniser sees text only. Between pieces, a caller may read
+// whole records itself straight from bytes (csv-records.ts) while idleBreak() says no record is open.
 
 /** A quote problem; `field` is the 0-based field of the record being read. */
 export class CsvQuoteError extends Error {
@@ -60,6 +61,15 @@ export class CsvTokeniser {
     this.pos = 0;
     this.quoteAt = STALE;
     this.run(false);
+  }
+
+  /**
+   * The record break ('\n' or '\r\n') when every piece handed over so far has been tokenised into
+   * whole records (none is half read); null otherwise, or while the break is not known yet.
+   */
+  idleBreak(): '\n' | '\r\n' | null {
+    if (this.pos !== this.text.length || !this.atRecordStart()) return null;
+    return this.recordBreak === '\n' || this.recordBreak === '\r\n' ? this.recordBreak : null;
   }
 
   /** The text has ended: emits the last record or throws if a quote is left open. */

@@ -1,11 +1,13 @@
 // Reader for the wide layout: `date,<id>,<id>,…`, one row per date, one column per security (and
-// optionally the market). Prices go straight into one Float64Array per column while streaming.
+// optionally the market). Prices go straight into one Float64Array per column while streaming; the
+// common row (plain prices, no quotes) is read straight from the file's bytes (rowFromBytes).
 import { isoOfDayNumber } from '../engine/calendar-date.js';
 import { badDate, badPrice, repeatedDate } from './cell-problems.js';
 import type { CellPlace } from './cell-problems.js';
 import { visitCsv } from './csv-records.js';
 import { ascendingOrder, findRepeatedDate, permuteFloat64, permuteInt32 } from './date-order.js';
 import { compileDateFormat } from './date-format.js';
+import type { DateFormat } from './date-format.js';
 import { growableInt32, pushInt32, trimmedInt32 } from './growable-array.js';
 import type { GrowableInt32 } from './growable-array.js';
 import { checkSecurityCodes, requireColumn } from './header-columns.js';
@@ -25,17 +27,93 @@ interface WideState {
   lines: GrowableInt32;
 }
 
+/** Columns per pass of the transposition: the rows of a block are read a cache-friendly strip at a time. */
+const STRIP = 32;
+
 function toColumns(blocks: readonly Float64Array[], width: number, rows: number): Float64Array[] {
   const columns = Array.from({ length: width }, () => new Float64Array(rows));
-  blocks.forEach((block, b) => {
+  for (let b = 0; b < blocks.length; b++) {
+    const block = blocks[b]!;
     const first = b * BLOCK_ROWS;
     const count = Math.min(BLOCK_ROWS, rows - first);
-    for (let k = 0; k < width; k++) {
-      const column = columns[k]!;
-      for (let r = 0; r < count; r++) column[first + r] = block[r * width + k]!;
+    for (let strip = 0; strip < width; strip += STRIP) {
+      const stop = Math.min(width, strip + STRIP);
+      for (let r = 0; r < count; r++) {
+        const base = r * width;
+        for (let k = strip; k < stop; k++) columns[k]![first + r] = block[base + k]!;
+      }
     }
-  });
+  }
   return columns;
+}
+
+/** The block that holds row `row` (a row read again as text after the byte path left it reuses it). */
+function blockFor(state: WideState, row: number): Float64Array {
+  const index = Math.floor(row / BLOCK_ROWS);
+  if (index === state.blocks.length) state.blocks.push(new Float64Array(BLOCK_ROWS * state.valueFields.length));
+  return state.blocks[index]!;
+}
+
+const EXACT_POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
+const DOT = 46;
+
+/**
+ * The byte path for the common row: a date the format reads as it stands and plain positive prices
+ * (`digits[.digits]`, at most 15 significant digits, no padding) or empty cells, as many fields as
+ * the header. Prices are mantissa / 10^k, as fastPrice() computes them from text (both operands exact,
+ * one correctly rounded division), so both paths store the same doubles. Answers the row's day, or
+ * NaN to leave the row to the text path (which then reads it, or names its problem).
+ */
+function rowFromBytes(state: WideState, format: DateFormat, delimiter: number, bytes: Uint8Array, start: number, end: number): number {
+  const row = state.days.length;
+  const block = blockFor(state, row);
+  const width = state.valueFields.length;
+  const fields = width + 1;
+  const dateField = state.dateField;
+  let at = start;
+  let day = Number.NaN;
+  let k = (row % BLOCK_ROWS) * width;
+  for (let field = 0; field < fields; field++) {
+    if (field > 0) {
+      if (at >= end || bytes[at] !== delimiter) return Number.NaN; // too few fields
+      at++;
+    }
+    if (field === dateField) {
+      let stop = at;
+      while (stop < end && bytes[stop] !== delimiter) stop++;
+      day = format.parse(String.fromCharCode.apply(null, bytes.subarray(at, stop) as unknown as number[]));
+      if (Number.isNaN(day)) return Number.NaN;
+      at = stop;
+      continue;
+    }
+    let mantissa = 0;
+    let digits = 0;
+    let fraction = -1;
+    const first = at;
+    for (; at < end; at++) {
+      const code = bytes[at]!;
+      if (code >= 48 && code <= 57) {
+        mantissa = mantissa * 10 + (code - 48);
+        if (mantissa !== 0) digits++;
+        if (fraction !== -1) fraction++;
+      } else if (code === DOT && fraction === -1) {
+        fraction = 0;
+      } else if (code === delimiter) {
+        break;
+      } else {
+        return Number.NaN;
+      }
+    }
+    if (at === first) {
+      block[k++] = Number.NaN; // an empty cell: missing
+      continue;
+    }
+    if (digits > 15 || fraction > 22 || at - first === (fraction === -1 ? 0 : 1)) return Number.NaN;
+    const price = fraction > 0 ? mantissa / EXACT_POWERS_OF_TEN[fraction]! : mantissa;
+    if (!(price > 0)) return Number.NaN;
+    block[k++] = price;
+  }
+  return at === end ? day : Number.NaN; // more fields than the header: the text path says so
 }
 
 export interface WideColumns {
@@ -71,8 +149,7 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
       pushInt32(state.days, day);
       pushInt32(state.lines, line);
       const width = state.valueFields.length;
-      if (row % BLOCK_ROWS === 0) state.blocks.push(new Float64Array(BLOCK_ROWS * width));
-      const block = state.blocks[state.blocks.length - 1]!;
+      const block = blockFor(state, row);
       const offset = (row % BLOCK_ROWS) * width;
       for (let k = 0; k < width; k++) {
         const field = state.valueFields[k]!;
@@ -80,6 +157,13 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
         if (price === -1) throw badPrice(place(field), fields[field]!);
         block[offset + k] = price;
       }
+    },
+    rowBytes(bytes, start, end, line) {
+      const day = rowFromBytes(state, format, options.delimiter.charCodeAt(0), bytes, start, end);
+      if (Number.isNaN(day)) return false;
+      pushInt32(state.days, day);
+      pushInt32(state.lines, line);
+      return true;
     },
   });
   const rows = state.days.length;

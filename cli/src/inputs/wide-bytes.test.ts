@@ -1,0 +1,138 @@
+// The wide reader takes the common row straight from bytes and leaves any other row to the text
+// path (wide-price-file.ts, csv-records.ts). Whichever path reads a row, the prices must be what an
+// independent reading gives: csv-parse (the npm CSV parser, RFC 4180) for the records and
+// JavaScript's Number() for the cells (ECMA-262 StringToNumber), on random files that mix plain rows
+// with rows the byte path must leave alone (padding, quotes, exponents, 16+ digits), larger than the
+// reader's 1 MB read size so rows also straddle reads.
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parse } from 'csv-parse/sync';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readPriceFile } from './price-file.js';
+import type { PriceFile, PriceFileOptions } from './price-file-options.js';
+import { InputError } from './input-error.js';
+
+const options: PriceFileOptions = { delimiter: ',', dateFormat: 'YYYY-MM-DD', columns: { layout: 'wide', dateColumn: 'date' }, marketId: 'MKT' };
+
+/** Mulberry32, seeded so a failing file can be made again. */
+function generator(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+function isoDate(dayNumber: number): string {
+  return new Date(Date.UTC(2001, 0, 1) + dayNumber * 86_400_000).toISOString().slice(0, 10);
+}
+
+/** A price cell: mostly plain decimals, sometimes a form only the text path reads. */
+function priceCell(random: () => number, awkward: boolean): string {
+  const price = (0.5 + random() * 400).toFixed(Math.floor(random() * 7));
+  if (!awkward) return random() < 0.03 ? '' : price;
+  const pick = Math.floor(random() * 5);
+  if (pick === 0) return ` ${price} `;
+  if (pick === 1) return `"${price}"`;
+  if (pick === 2) return Number(price).toExponential(4);
+  if (pick === 3) return (Number(price) + 1e-9 * random()).toPrecision(17);
+  return `+${price}`;
+}
+
+interface Made { readonly text: string; readonly name: string }
+
+function makeFile(seed: number, rows: number, securities: number, lineEnd: string, awkwardShare: number): Made {
+  const random = generator(seed);
+  const ids = ['MKT', ...Array.from({ length: securities }, (_, k) => `QZ-T${String(k).padStart(4, '0')}`)];
+  const lines = [['date', ...ids].join(',')];
+  for (let r = 0; r < rows; r++) {
+    const awkwardRow = random() < awkwardShare;
+    const cells = ids.map(() => priceCell(random, awkwardRow && random() < 0.2));
+    cells[0] = cells[0] === '' ? '100' : cells[0]!;
+    lines.push([isoDate(r), ...cells].join(','));
+  }
+  return { text: `${lines.join(lineEnd)}${lineEnd}`, name: `wide-${seed}.csv` };
+}
+
+/** The independent reading: csv-parse records, trimmed cells, Number(), keyed by id and date. */
+function referenceReading(text: string): Map<string, Map<string, number>> {
+  const [header, ...records] = parse(text, { relax_column_count: false }) as string[][];
+  const byId = new Map<string, Map<string, number>>();
+  header!.slice(1).forEach((id, k) => {
+    const prices = new Map<string, number>();
+    for (const record of records) {
+      const cell = record[k + 1]!.trim();
+      if (cell !== '') prices.set(record[0]!, Number(cell));
+    }
+    byId.set(id, prices);
+  });
+  return byId;
+}
+
+function readingOf(file: PriceFile): Map<string, Map<string, number>> {
+  const byId = new Map<string, Map<string, number>>();
+  for (const series of [file.market!, ...file.securities]) {
+    const prices = new Map<string, number>();
+    series.dates.forEach((date, i) => {
+      if (!Number.isNaN(series.prices[i]!)) prices.set(date, series.prices[i]!);
+    });
+    byId.set(series.id, prices);
+  }
+  return byId;
+}
+
+let dir = '';
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'clino-wide-bytes-'));
+});
+afterAll(async () => {
+  await rm(dir, { recursive: true, force: true });
+});
+
+async function written(made: Made): Promise<string> {
+  const path = join(dir, made.name);
+  await writeFile(path, made.text);
+  return path;
+}
+
+describe('wide price files read from bytes', () => {
+  const cases = [
+    { behaviour: 'plain rows only, LF', seed: 11, lineEnd: '\n', awkwardShare: 0 },
+    { behaviour: 'plain rows with one row in twenty awkward, LF', seed: 12, lineEnd: '\n', awkwardShare: 0.05 },
+    { behaviour: 'plain rows with one row in twenty awkward, CRLF', seed: 13, lineEnd: '\r\n', awkwardShare: 0.05 },
+    { behaviour: 'mostly awkward rows (the byte path gives up)', seed: 14, lineEnd: '\n', awkwardShare: 0.9 },
+  ];
+  for (const { behaviour, seed, lineEnd, awkwardShare } of cases) {
+    it(`gives csv-parse and Number()'s prices for ${behaviour}`, async () => {
+      const made = makeFile(seed, 700, 300, lineEnd, awkwardShare);
+      expect(made.text.length).toBeGreaterThan(1 << 20); // more than one read of the reader
+      const file = await readPriceFile(await written(made), options);
+      expect(readingOf(file)).toEqual(referenceReading(made.text));
+    });
+  }
+
+  it('names the line and column of a bad cell that follows rows read from bytes', async () => {
+    const made = makeFile(21, 600, 300, '\n', 0);
+    const lines = made.text.split('\n');
+    const cells = lines[457]!.split(',');
+    cells[123] = '12;5';
+    lines[457] = cells.join(',');
+    const path = await written({ text: lines.join('\n'), name: 'bad-cell.csv' });
+    const error = await readPriceFile(path, options).then(() => null, (caught: unknown) => caught);
+    expect(error).toBeInstanceOf(InputError);
+    expect(error).toMatchObject({ code: 'INPUT_BAD_PRICE', file: path, line: 458, column: 124 });
+  });
+
+  it('names the line of a short row that follows rows read from bytes', async () => {
+    const made = makeFile(22, 600, 300, '\n', 0);
+    const lines = made.text.split('\n');
+    lines[300] = lines[300]!.split(',').slice(0, 200).join(',');
+    const path = await written({ text: lines.join('\n'), name: 'short-row.csv' });
+    const error = await readPriceFile(path, options).then(() => null, (caught: unknown) => caught);
+    expect(error).toMatchObject({ code: 'INPUT_FIELD_COUNT', file: path, line: 301, column: 201 });
+  });
+});
