@@ -33,14 +33,25 @@ export interface SliceStatistics {
   readonly dimson: SecurityResult[];
 }
 
-/** One row of cells per rolling end (oldest first), the slice's securities in order, as UTF-8. */
+/**
+ * One row of cells per rolling end (oldest first), the slice's securities in order, as ASCII in a
+ * slot of the slice's shared format memory (the slot is reused once its rows are written out).
+ */
 export interface FormattedRows {
   /** Securities in the slice (a slice of none adds no cells). */
   readonly columns: number;
-  readonly bytes: Uint8Array;
-  /** Row r is bytes[offsets[r] .. offsets[r + 1]). */
+  /** Row r is the slot's bytes[offsets[r] .. offsets[r + 1]). */
   readonly offsets: Int32Array;
 }
+
+/** A cell and its comma. */
+export const MAX_CELL_BYTES = MAX_NUMBER_CELL_BYTES + 1;
+/** Rolling-beta rows formatted per request: small enough to keep memory flat, large enough to keep the slices busy. */
+export const ROWS_PER_BLOCK = 64;
+/** Blocks requested before the first is written: each slice always has rows to format. */
+export const BLOCKS_AHEAD = 4;
+/** Format slots per slice: the blocks ahead and the one being written out. */
+export const FORMAT_SLOTS = BLOCKS_AHEAD + 1;
 
 export interface RollingSummary {
   /** Period label of each rolling end, oldest first. */
@@ -51,8 +62,8 @@ export interface SliceWork {
   statistics(frequency: Frequency, window: WindowSetting): SliceStatistics;
   /** Rolling betas ending at every period; the daily returns are let go afterwards. */
   rolling(window: WindowSetting): RollingSummary;
-  /** Rolling-beta rows [from, to) formatted as CSV cells (oldest end first). */
-  formatRolling(from: number, to: number): FormattedRows;
+  /** Rolling-beta rows [from, to) formatted as CSV cells (oldest end first) into `slot`. */
+  formatRolling(from: number, to: number, slot: Uint8Array): FormattedRows;
 }
 
 function settingsOf(estimator: BaseEstimator, frequency: Frequency, window: WindowSetting): EstimationSettings {
@@ -83,12 +94,14 @@ function statisticsOf(aligned: AlignedSample, frequency: Frequency, window: Wind
   };
 }
 
-/** A cell and its comma. */
-const MAX_CELL_BYTES = MAX_NUMBER_CELL_BYTES + 1;
+/** Views of the `slotBytes`-byte slots of a slice's format memory. */
+export function formatSlots(memory: SharedArrayBuffer, slotBytes: number): Uint8Array[] {
+  return Array.from({ length: Math.floor(memory.byteLength / slotBytes) }, (_, k) => new Uint8Array(memory, k * slotBytes, slotBytes));
+}
 
-function formatColumns(columns: readonly Float64Array[], from: number, to: number): FormattedRows {
+function formatColumns(columns: readonly Float64Array[], from: number, to: number, bytes: Uint8Array): FormattedRows {
   const rows = Math.max(0, to - from);
-  const bytes = new Uint8Array(Math.max(1, rows * columns.length * MAX_CELL_BYTES));
+  if (bytes.length < rows * columns.length * MAX_CELL_BYTES) throw new RangeError('the format slot is too small for the rows asked');
   const offsets = new Int32Array(rows + 1);
   let position = 0;
   for (let r = 0; r < rows; r++) {
@@ -98,7 +111,7 @@ function formatColumns(columns: readonly Float64Array[], from: number, to: numbe
     }
     offsets[r + 1] = position;
   }
-  return { columns: columns.length, bytes: bytes.slice(0, position), offsets };
+  return { columns: columns.length, offsets };
 }
 
 /**
@@ -134,8 +147,8 @@ export function sliceWork(data: SliceData): SliceWork {
       daily = null;
       return { labels: Array.from(ends, (end) => aligned.grid.labels[end]!) };
     },
-    formatRolling(from, to) {
-      return formatColumns(betas, from, to);
+    formatRolling(from, to, slot) {
+      return formatColumns(betas, from, to, slot);
     },
   };
 }

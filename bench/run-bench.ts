@@ -64,7 +64,7 @@ const rolling = await clock.time('rolling betas', () => pool.rolling({ phase: 'r
 const labels = rolling.find((part) => part.labels.length > 0)?.labels ?? [];
 
 await clock.time('write results', async () => {
-  const rollingCsv = writeRollingCsv(join(out, 'rolling-betas-daily.csv'), ids, labels, (from, to) => pool.formatRolling(from, to));
+  const rollingCsv = writeRollingCsv(join(out, 'rolling-betas-daily.csv'), ids, labels, (from, to, slot) => pool.formatRolling(from, to, slot));
   await Promise.all([...resultRows].map(([name, rows]) => writeFile(join(out, name), renderResultCsv(rows))));
   await rollingCsv;
 });

@@ -2,10 +2,11 @@
 // thread (the price arrays transferred to the worker, not copied). Workers are started before the
 // input is parsed (their module loading overlaps the parse) and loaded with their slice afterwards.
 // Every slice answers the same phase requests; the pool sends a request to every slice and waits for
-// all the answers.
+// all the answers. Formatted rows come back through shared memory, a few reused slots per slice, so
+// the write phase does not allocate (fresh memory is costly: docs/performance.md).
 import { Worker } from 'node:worker_threads';
 import { once } from 'node:events';
-import { sliceWork } from './batch-slice.js';
+import { FORMAT_SLOTS, MAX_CELL_BYTES, ROWS_PER_BLOCK, formatSlots, sliceWork } from './batch-slice.js';
 import type { FormattedRows, RollingSummary, SliceData, SliceStatistics } from './batch-slice.js';
 import type { PhaseRequest, WorkerRequest } from './batch-worker.js';
 import type { DatedSeries } from '../cli/src/inputs/price-file-options.js';
@@ -13,12 +14,17 @@ import type { YieldSeries } from '../cli/src/engine/risk-free.js';
 
 type Ask = (request: PhaseRequest) => Promise<unknown>;
 
+/** A slice's formatted rows and the slot they are in (valid until that slot is asked for again). */
+export interface FormattedBlock extends FormattedRows {
+  readonly bytes: Uint8Array;
+}
+
 export interface SlicePool {
   readonly size: number;
   statistics(request: Extract<PhaseRequest, { phase: 'statistics' }>): Promise<SliceStatistics[]>;
   rolling(request: Extract<PhaseRequest, { phase: 'rolling' }>): Promise<RollingSummary[]>;
-  /** Rows [from, to) of the rolling betas, formatted by every slice at once. */
-  formatRolling(from: number, to: number): Promise<FormattedRows[]>;
+  /** Rows [from, to) (at most ROWS_PER_BLOCK) of the rolling betas, formatted by every slice at once into format slot `slot`. */
+  formatRolling(from: number, to: number, slot: number): Promise<FormattedBlock[]>;
   close(): Promise<void>;
 }
 
@@ -65,24 +71,34 @@ function slices(securities: readonly DatedSeries[], market: DatedSeries, yields:
   });
 }
 
-function poolOf(asks: readonly Ask[], close: () => Promise<void>): SlicePool {
+/** Format memory of one slice: FORMAT_SLOTS slots of a block of rows each. */
+function formatMemoryOf(data: SliceData): { memory: SharedArrayBuffer; slotBytes: number; slots: Uint8Array[] } {
+  const slotBytes = Math.max(1, ROWS_PER_BLOCK * data.ids.length * MAX_CELL_BYTES);
+  const memory = new SharedArrayBuffer(FORMAT_SLOTS * slotBytes);
+  return { memory, slotBytes, slots: formatSlots(memory, slotBytes) };
+}
+
+function poolOf(asks: readonly Ask[], slotsOfSlice: readonly Uint8Array[][], close: () => Promise<void>): SlicePool {
   const each = <T>(phase: PhaseRequest) => Promise.all(asks.map((ask) => ask(phase))) as Promise<T[]>;
   return {
     size: asks.length,
     statistics: (phase) => each<SliceStatistics>(phase),
     rolling: (phase) => each<RollingSummary>(phase),
-    formatRolling: (from, to) => each<FormattedRows>({ phase: 'format-rolling', from, to }),
+    async formatRolling(from, to, slot) {
+      const parts = await each<FormattedRows>({ phase: 'format-rolling', from, to, slot });
+      return parts.map((part, s) => ({ ...part, bytes: slotsOfSlice[s]![slot]! }));
+    },
     close,
   };
 }
 
-function localAsk(data: SliceData): Ask {
+function localAsk(data: SliceData, slots: readonly Uint8Array[]): Ask {
   const work = sliceWork(data);
   return (phase) => {
     switch (phase.phase) {
       case 'statistics': return Promise.resolve(work.statistics(phase.frequency, phase.window));
       case 'rolling': return Promise.resolve(work.rolling(phase.window));
-      case 'format-rolling': return Promise.resolve(work.formatRolling(phase.from, phase.to));
+      case 'format-rolling': return Promise.resolve(work.formatRolling(phase.from, phase.to, slots[phase.slot]!));
     }
   };
 }
@@ -98,10 +114,14 @@ export function startSlicePool(threads: number): StartedPool {
     async load(securities, market, yields) {
       const workers = await started;
       const parts = slices(securities, market, yields, workers.length + 1);
-      await Promise.all(workers.map((thread, s) => thread.request({ phase: 'load', data: parts[s]! }, parts[s]!.prices.map((p) => p.buffer as ArrayBuffer))));
+      const memories = parts.map(formatMemoryOf);
+      await Promise.all(workers.map((thread, s) => thread.request(
+        { phase: 'load', data: parts[s]!, formatMemory: memories[s]!.memory, slotBytes: memories[s]!.slotBytes },
+        parts[s]!.prices.map((p) => p.buffer as ArrayBuffer),
+      )));
       const asks = workers.map((thread): Ask => (phase) => thread.request(phase));
-      asks.push(localAsk(parts[workers.length]!));
-      return poolOf(asks, async () => { await Promise.all(workers.map((thread) => thread.worker.terminate())); });
+      asks.push(localAsk(parts[workers.length]!, memories[workers.length]!.slots));
+      return poolOf(asks, memories.map((m) => m.slots), async () => { await Promise.all(workers.map((thread) => thread.worker.terminate())); });
     },
   };
 }

@@ -67,6 +67,11 @@ describe('writeNumberCell', () => {
     expect(mismatches(sample(200_000, () => Math.round(random() * 1e6) / 10 ** Math.floor(random() * 8)))).toEqual([]);
   });
 
+  it('writes what formatNumberCell writes for whole numbers and halves up to 1e15 (no point, or one place)', () => {
+    const random = generator(5);
+    expect(mismatches(sample(200_000, () => Math.floor(random() * 10 ** (9 + random() * 6)) / (random() < 0.5 ? 1 : 2)))).toEqual([]);
+  });
+
   it('writes what formatNumberCell writes next to powers of ten and of two, and at 2^53', () => {
     const edges: number[] = [];
     for (let e = -8; e <= 17; e++) {

@@ -9,11 +9,13 @@
 //   error of |x|·10^q exactly, so N_17, N_16 and N_15 are all rounded from the exact product;
 // - N_p reads back as x when N_p / 10^q === |x|: with N_p < 2^53 both operands are exact and one IEEE
 //   division rounds correctly (Clinger 1990, the fast path of reading decimals);
+// - when N_16 >= 2^53 it is not an exact double: then it reads back when it lies within half an ulp
+//   of |x| (the distance is known exactly from N_17's last digit and the rounding error);
 // - 15 digits reading back means a shorter text may exist: then String(x) decides. Otherwise 16
 //   digits if they read back, else 17 (17 significant digits always read back, and the nearest
 //   17-digit decimal is the one Number::toString takes).
-// Anything outside (exponent notation, a tie, N_16 >= 2^53, an exponent estimate off by one) falls
-// back to String(x), so the bytes never differ from formatNumberCell.
+// Anything outside (exponent notation, a tie, a power of two next to 2^53·10^k, an exponent estimate
+// off by one) falls back to String(x), so the bytes never differ from formatNumberCell.
 
 const EXACT_POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** 2^27 + 1: Dekker's splitter for doubles. */
@@ -35,10 +37,10 @@ function productError(a: number, b: number, product: number): number {
 /**
  * Writes the `count` digits of upper·10^lowCount + lower (lower < 10^lowCount, both below 2^31) with
  * the decimal point after n of them (−6 < n < count), from the last digit back; UNCERTAIN when the
- * last digit is 0 (a shorter text exists: String(v) decides).
+ * last digit is 0 (a shorter text exists: String(v) decides) or the number is a whole one (n >= count).
  */
 function writeDigits(bytes: Uint8Array, at: number, upper: number, lower: number, lowCount: number, count: number, n: number): number {
-  if (lower - ((lower / 10) | 0) * 10 === 0) return UNCERTAIN;
+  if (n >= count || lower - ((lower / 10) | 0) * 10 === 0) return UNCERTAIN;
   let first = at;
   if (n <= 0) {
     bytes[first++] = 48; // '0'
@@ -56,6 +58,67 @@ function writeDigits(bytes: Uint8Array, at: number, upper: number, lower: number
     rest = tenth;
   }
   return end;
+}
+
+/** Exact powers of two, 2^-80 … 2^63, by index k + 80 (v < 1e15 < 2^50; its half ulp >= 2^-74). */
+const POWERS_OF_TWO = Array.from({ length: 144 }, (_, k) => 2 ** (k - 80));
+
+/** floor(log2 v) for 1e-6 <= v < 1e15. */
+function binaryExponent(v: number): number {
+  const estimate = Math.floor(Math.log2(v));
+  if (POWERS_OF_TWO[estimate + 80]! > v) return estimate - 1;
+  return POWERS_OF_TWO[estimate + 81]! <= v ? estimate + 1 : estimate;
+}
+
+/**
+ * Whether a decimal `offset` away from v·10^q (in units of 10^-q; the offset exact to a few units in
+ * the last place) reads back as v: it must lie within half an ulp of v. null when too close to tell,
+ * or when v is a power of two (its interval is narrower below than above).
+ */
+function withinHalfUlp(v: number, scale: number, offset: number): boolean | null {
+  const binary = binaryExponent(v);
+  if (v === POWERS_OF_TWO[binary + 80]) return null;
+  const halfUlp = scale * POWERS_OF_TWO[binary - 53 + 80]!; // exact: a power of ten times a power of two
+  const distance = Math.abs(offset);
+  if (Math.abs(distance - halfUlp) < 1e-9) return null;
+  return distance < halfUlp;
+}
+
+const NOT_SHORT = 0;
+/** The digits shortestUpTo15 found: shortUpper·10^(p − 8) + shortLower. */
+let shortUpper = 0;
+let shortLower = 0;
+
+/**
+ * The fewest digits p <= 15 whose N_p reads back as v, with N_p in shortUpper and shortLower;
+ * NOT_SHORT when 15 digits do not read back (16 or 17 are needed); UNCERTAIN when it cannot tell
+ * here (a tie, 9 digits or fewer reading back, v a power of two, a check that needs 10^-k).
+ * N_17 = upper·1e9 + lower, the exact product N_17 + fraction. Reading back is monotone in p: if
+ * p digits read back so do p + 1 (the nearest p + 1-digit decimal is at least as close), so the
+ * search stops at the first p that does not.
+ */
+function shortestUpTo15(v: number, q: number, upper: number, lower: number, fraction: number): number {
+  let found = NOT_SHORT;
+  for (let p = 15; p >= 9; p--) {
+    const check = q - 17 + p; // N_p / 10^check is the p-digit decimal
+    if (check < 0) return UNCERTAIN;
+    const divisor = EXACT_POWERS_OF_TEN[17 - p]!;
+    const tail = lower - ((lower / divisor) | 0) * divisor;
+    const over = tail + fraction;
+    const half = divisor / 2;
+    if (over === half) return UNCERTAIN; // a tie
+    const lowLimit = EXACT_POWERS_OF_TEN[p - 8]!;
+    let low = (lower - tail) / divisor + (over > half ? 1 : 0);
+    let up = upper;
+    if (low >= lowLimit) { up += 1; low -= lowLimit; }
+    if ((up * lowLimit + low) / EXACT_POWERS_OF_TEN[check]! !== v) break;
+    found = p;
+    shortUpper = up;
+    shortLower = low;
+  }
+  if (found === NOT_SHORT) return NOT_SHORT;
+  if (found === 9 || v === POWERS_OF_TWO[binaryExponent(v) + 80]) return UNCERTAIN;
+  return found;
 }
 
 /** Writes v (1e-6 <= v < 1e15) at `at` and answers the end, or UNCERTAIN to leave it to String(v). */
@@ -77,21 +140,25 @@ function writePositive(bytes: Uint8Array, at: number, v: number): number {
   let lower = high - upper * 1e9 + step;
   if (lower < 0) { upper -= 1; lower += 1e9; }
   if (lower >= 1e9) { upper += 1; lower -= 1e9; }
-  // N15 and N16, the exact product rounded at 15 and 16 digits, from N17's last digits and the fraction.
+  // N_p for p <= 16: the exact product rounded at p digits, from N17's last digits and the fraction.
   const lowerInt = lower | 0;
-  const lastTwo = lowerInt - ((lowerInt / 100) | 0) * 100;
-  const over15 = lastTwo + fraction;
-  const lastOne = lastTwo - ((lastTwo / 10) | 0) * 10;
+  const shortest = shortestUpTo15(v, q, upper, lowerInt, fraction);
+  if (shortest !== NOT_SHORT) {
+    if (shortest === UNCERTAIN) return UNCERTAIN;
+    return writeDigits(bytes, at, shortUpper, shortLower, shortest - 8, shortest, exponent + 1);
+  }
+  const lastOne = lowerInt - ((lowerInt / 10) | 0) * 10;
   const over16 = lastOne + fraction;
-  if (over15 === 50 || over16 === 5) return UNCERTAIN; // a tie
-  const n15 = upper * 1e7 + (lower - lastTwo) / 100 + (over15 > 50 ? 1 : 0);
-  if (n15 / EXACT_POWERS_OF_TEN[q - 2]! === v) return UNCERTAIN; // 15 digits or fewer: String(v) decides
+  if (over16 === 5) return UNCERTAIN; // a tie
   let lower16 = (lower - lastOne) / 10 + (over16 > 5 ? 1 : 0);
   let upper16 = upper;
   if (lower16 >= 1e8) { upper16 += 1; lower16 -= 1e8; }
   const n16 = upper16 * 1e8 + lower16;
-  if (n16 >= TWO_POW_53) return UNCERTAIN; // cannot tell whether 16 digits read back
-  if (n16 / EXACT_POWERS_OF_TEN[q - 1]! === v) return writeDigits(bytes, at, upper16, lower16, 8, 16, exponent + 1);
+  const sixteenReadBack = n16 < TWO_POW_53
+    ? n16 / EXACT_POWERS_OF_TEN[q - 1]! === v
+    : withinHalfUlp(v, scale, (over16 > 5 ? 10 - lastOne : -lastOne) - fraction);
+  if (sixteenReadBack === null) return UNCERTAIN;
+  if (sixteenReadBack) return writeDigits(bytes, at, upper16, lower16, 8, 16, exponent + 1);
   return writeDigits(bytes, at, upper, lowerInt, 9, 17, exponent + 1);
 }
 
