@@ -5,18 +5,19 @@ import { open } from 'node:fs/promises';
 import type { FileHandle } from 'node:fs/promises';
 import { applyVasicek } from '../cli/src/engine/adjustments.js';
 import type { SecurityResult } from '../cli/src/engine/types.js';
-import type { ResultRow } from '../server/src/contracts/result-columns.js';
+import { resultRowOf } from '../server/src/contracts/result-columns.js';
+import type { ResultRow, RowPricing } from '../server/src/contracts/result-columns.js';
 import { BLOCKS_AHEAD, FORMAT_SLOTS, ROWS_PER_BLOCK } from './batch-slice.js';
 import type { FormattedBlock } from './slice-pool.js';
 
-const NO_PRICING = {
+const NO_PRICING: RowPricing = {
   group: null, expectedReturn: NaN, expectedReturnLow: NaN, expectedReturnHigh: NaN, debtToEquity: NaN, taxRate: NaN,
   unleveredBeta: NaN, peerGroup: null, peerUnleveredBeta: NaN, releveredBeta: NaN, costOfDebtAfterTax: NaN, wacc: NaN,
-} as const;
+};
 
 /** Vasicek across the whole run (the prior needs every slice), Blume as the adjusted beta. */
 export function resultRowsOf(results: readonly SecurityResult[]): ResultRow[] {
-  return applyVasicek(results, { adjustment: 'blume', vasicekPrior: 'cross-section' }).map((result) => ({ ...result, ...NO_PRICING }));
+  return applyVasicek(results, { adjustment: 'blume', vasicekPrior: 'cross-section' }).map((result) => resultRowOf(result, NO_PRICING));
 }
 
 /** The file is written in chunks of this size, two of them reused in turn (one filling, one being written). */

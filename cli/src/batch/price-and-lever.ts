@@ -1,6 +1,7 @@
 // From each security's result to its result row: the group label, the CAPM expected return and its
 // band, unlevering at the security's own D/E, the peer groups' relevered betas, the after-tax cost of
 // debt and WACC. Every number comes from an engine function; NaN where the spec gives no input.
+import { resultRowOf } from '../../../server/src/contracts/result-columns.js';
 import type { ResultRow } from '../../../server/src/contracts/result-columns.js';
 import type { ResolvedRunSpec } from '../../../server/src/contracts/run-spec.schema.js';
 import { afterTaxCostOfDebt, peerGroupBeta, unlever, waccFromDebtToEquity, type PeerGroupBeta } from '../engine/leverage.js';
@@ -70,14 +71,13 @@ export function resultRows(spec: ResolvedRunSpec, results: readonly SecurityResu
     const pricing = priced(spec, result);
     const peerGroup = peerGroupOf.get(result.id) ?? null;
     const peer = peerGroup === null ? undefined : groups.get(peerGroup);
-    return {
-      ...result,
+    return resultRowOf(result, {
       group: spec.groups?.[result.id] ?? null,
       ...pricing,
       ...levered(spec.capitalStructure, result.id, pricingBetaOf(spec, result), pricing.expectedReturn),
       peerGroup,
       peerUnleveredBeta: peer?.unleveredBeta ?? NaN,
       releveredBeta: peer?.releveredBeta ?? NaN,
-    };
+    });
   });
 }

@@ -1,6 +1,8 @@
 import { parse } from 'csv-parse/sync';
 import { describe, expect, it } from 'vitest';
-import { RESULT_COLUMNS, toResultRecord } from './result-columns.js';
+import { stringify } from 'csv-stringify/sync';
+import { RESULT_COLUMNS, columnValue, toResultRecord } from './result-columns.js';
+import type { ResultColumn } from './result-columns.js';
 import {
   compareSecurityCodes,
   formatNumberCell,
@@ -123,6 +125,32 @@ describe('renderResultCsv', () => {
   it('gives the same bytes from records that went through JSON', () => {
     const stored = JSON.parse(JSON.stringify(rows.map(toResultRecord))) as ReturnType<typeof toResultRecord>[];
     expect(renderResultCsvFromRecords(stored)).toBe(renderResultCsv(rows));
+  });
+
+  it('writes what csv-stringify writes for the same cells (random text with commas, quotes, CR, LF, non-ASCII)', () => {
+    // Reference: csv-stringify (npm), RFC 4180 with `\n` records and a lone CR quoted, fed the cells
+    // the writer writes (formatNumberCell for numbers, neutraliseText for input text).
+    let seed = 7;
+    const next = (): number => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    const alphabet = ['a', 'Z', '0', ',', '"', '\r', '\n', ' ', '=', '-', '\u00e9', '\u20ac', '\u{1F600}', ';', "'"];
+    const text = (): string => Array.from({ length: 1 + Math.floor(next() * 8) }, () => alphabet[Math.floor(next() * alphabet.length)]).join('');
+    const many = Array.from({ length: 300 }, (_, i) => resultRow(`QZ${i}${text()}`, {
+      group: next() < 0.2 ? null : text(), peerGroup: text(), beta: (next() - 0.5) * 4, alpha: next() < 0.1 ? Number.NaN : next() / 100,
+    }));
+    const columns = RESULT_COLUMNS as readonly ResultColumn[];
+    const cells = [...many]
+      .sort((a, b) => compareSecurityCodes(a.id, b.id))
+      .map((row) => columns.map((column) => {
+        const value = columnValue(column, row);
+        if (column.type === 'number') return formatNumberCell(typeof value === 'number' ? value : null);
+        if (value === null) return '';
+        return column.fromInput ? neutraliseText(String(value)) : String(value);
+      }));
+    const reference = stringify([columns.map((column) => column.name), ...cells], { record_delimiter: '\n', quoted_match: /\r/ });
+    expect(renderResultCsv(many)).toBe(reference);
   });
 
   it('refuses two rows for one security', () => {

@@ -1,6 +1,7 @@
-import { stringify } from 'csv-stringify/sync';
+import { MAX_NUMBER_CELL_BYTES, writeNumberCell } from './number-bytes.js';
 import {
   RESULT_COLUMNS,
+  columnValue,
   toResultRecord,
   type ResultColumn,
   type ResultColumnName,
@@ -41,15 +42,24 @@ export function compareSecurityCodes(a: string, b: string): number {
   return Buffer.compare(Buffer.from(a, 'utf8'), Buffer.from(b, 'utf8'));
 }
 
-/** Records sorted by security; two records for one security is a bug upstream, not a tie to break. */
-export function sortResultRecords(records: readonly ResultRecord[]): ResultRecord[] {
-  const sorted = [...records].sort((a, b) => compareSecurityCodes(a.security ?? '', b.security ?? ''));
-  for (let i = 1; i < sorted.length; i += 1) {
-    if (sorted[i]?.security === sorted[i - 1]?.security) {
-      throw new Error(`Two result rows for security ${JSON.stringify(sorted[i]?.security)}`);
+/** Items sorted by security code (compareSecurityCodes, each code encoded once); a code twice throws. */
+function sortedBySecurity<T>(items: readonly T[], securityOf: (item: T) => string): T[] {
+  const keyed = items.map((item) => {
+    const security = securityOf(item);
+    return { item, security, key: Buffer.from(security, 'utf8') };
+  });
+  keyed.sort((a, b) => Buffer.compare(a.key, b.key));
+  for (let i = 1; i < keyed.length; i += 1) {
+    if (keyed[i]!.security === keyed[i - 1]!.security) {
+      throw new Error(`Two result rows for security ${JSON.stringify(keyed[i]!.security)}`);
     }
   }
-  return sorted;
+  return keyed.map(({ item }) => item);
+}
+
+/** Records sorted by security; two records for one security is a bug upstream, not a tie to break. */
+export function sortResultRecords(records: readonly ResultRecord[]): ResultRecord[] {
+  return sortedBySecurity(records, (record) => record.security ?? '');
 }
 
 /**
@@ -62,12 +72,79 @@ export function selectResultColumns(names?: readonly ResultColumnName[]): readon
   return all.filter((column) => column.name === 'security' || (names as readonly string[]).includes(column.name));
 }
 
-function cell(column: ResultColumn, record: ResultRecord): string {
-  const value = (record as Readonly<Record<string, string | number | null>>)[column.name] ?? null;
-  if (column.type === 'number') return formatNumberCell(typeof value === 'number' ? value : null);
-  if (value === null) return '';
-  const textValue = String(value);
-  return column.fromInput ? neutraliseText(textValue) : textValue;
+/** A text cell as RFC 4180 writes it: quoted when it holds a comma, a quote, CR or LF; quotes doubled. */
+export function csvTextField(text: string): string {
+  return /[",\r\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+}
+
+/**
+ * The CSV's bytes as they are written: number cells straight into the buffer (writeNumberCell, the
+ * text of formatNumberCell without a string per cell), text cells quoted as needed.
+ */
+class CsvBytes {
+  private bytes = Buffer.allocUnsafe(1 << 16);
+  private length = 0;
+
+  private room(more: number): void {
+    if (this.length + more <= this.bytes.length) return;
+    const bigger = Buffer.allocUnsafe(Math.max(this.bytes.length * 2, this.length + more));
+    this.bytes.copy(bigger, 0, 0, this.length);
+    this.bytes = bigger;
+  }
+
+  comma(): void {
+    this.room(1);
+    this.bytes[this.length++] = 0x2c;
+  }
+
+  lineEnd(): void {
+    this.room(1);
+    this.bytes[this.length++] = 0x0a;
+  }
+
+  text(text: string): void {
+    const field = csvTextField(text);
+    this.room(field.length * 3);
+    this.length += this.bytes.write(field, this.length, 'utf8');
+  }
+
+  number(x: number | null): void {
+    if (x === null) return;
+    this.room(MAX_NUMBER_CELL_BYTES);
+    this.length = writeNumberCell(this.bytes, this.length, x);
+  }
+
+  /** One cell of `column` holding `value` (a record's value for it). */
+  cell(column: ResultColumn, value: string | number | null): void {
+    if (column.type === 'number') {
+      this.number(typeof value === 'number' ? value : null);
+    } else if (value !== null) {
+      const textValue = String(value);
+      this.text(column.fromInput ? neutraliseText(textValue) : textValue);
+    }
+  }
+
+  toString(): string {
+    return this.bytes.toString('utf8', 0, this.length);
+  }
+}
+
+/** Header and rows: `valueOf(item, column)` is the value the item's record holds for the column. */
+function renderRows<T>(columns: readonly ResultColumn[], items: readonly T[], valueOf: (item: T, column: ResultColumn) => string | number | null): string {
+  const out = new CsvBytes();
+  columns.forEach((column, k) => {
+    if (k > 0) out.comma();
+    out.text(column.name);
+  });
+  out.lineEnd();
+  for (const item of items) {
+    for (let k = 0; k < columns.length; k++) {
+      if (k > 0) out.comma();
+      out.cell(columns[k]!, valueOf(item, columns[k]!));
+    }
+    out.lineEnd();
+  }
+  return out.toString();
 }
 
 export interface ResultCsvOptions {
@@ -75,20 +152,23 @@ export interface ResultCsvOptions {
   readonly columns?: readonly ResultColumnName[];
 }
 
-/** The CSV from stored records (the server's release path). RFC 4180 quoting, `\n` line ends. */
+/**
+ * The CSV from stored records (the server's release path). RFC 4180: a field is quoted when it holds
+ * a comma, a quote, CR or LF (csv-stringify's choice, checked against it in the tests); `\n` line ends.
+ */
 export function renderResultCsvFromRecords(records: readonly ResultRecord[], options: ResultCsvOptions = {}): string {
   const columns = selectResultColumns(options.columns);
-  const body = sortResultRecords(records).map((record) => columns.map((column) => cell(column, record)));
-  return stringify([columns.map((column) => column.name), ...body], {
-    record_delimiter: '\n',
-    // csv-stringify quotes a field holding the delimiter, a quote or `\n`; a lone `\r` needs quoting too.
-    quoted_match: /\r/,
-  });
+  return renderRows(columns, sortResultRecords(records), (record, column) => (record as Readonly<Record<string, string | number | null>>)[column.name] ?? null);
 }
 
-/** The CSV from the engine's rows (the CLI path); identical bytes to the records path. */
+/**
+ * The CSV from the engine's rows (the CLI path); identical bytes to the records path: the same
+ * column values (toResultRecord's), without building a record per row.
+ */
 export function renderResultCsv(rows: readonly ResultRow[], options: ResultCsvOptions = {}): string {
-  return renderResultCsvFromRecords(rows.map(toResultRecord), options);
+  const columns = selectResultColumns(options.columns);
+  const security = RESULT_COLUMNS.find((column) => column.name === 'security')! as ResultColumn;
+  return renderRows(columns, sortedBySecurity(rows, (row) => String(security.value(row) ?? '')), (row, column) => columnValue(column, row));
 }
 
 /** The rows as data for `--json` and the ingest payload: same content, numbers as numbers, null for empty. */
