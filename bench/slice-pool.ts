@@ -39,11 +39,16 @@ interface Thread {
   request(message: WorkerRequest, transfer?: ArrayBuffer[]): Promise<unknown>;
 }
 
-async function startThread(): Promise<Thread> {
+/** The worker: batch-worker.js beside this module when the benchmark was built ahead (npm run bench), else the TypeScript through tsx. */
+function newWorker(): Worker {
+  if (import.meta.url.endsWith('.js')) return new Worker(new URL('./batch-worker.js', import.meta.url));
   // Node 20 does not pass tsx's loader to a worker whose entry is a .ts file: register it first.
   const entry = JSON.stringify(new URL('./batch-worker.ts', import.meta.url).href);
-  const bootstrap = `import('tsx/esm/api').then(({ register }) => { register(); return import(${entry}); });`;
-  const worker = new Worker(bootstrap, { eval: true });
+  return new Worker(`import('tsx/esm/api').then(({ register }) => { register(); return import(${entry}); });`, { eval: true });
+}
+
+async function startThread(): Promise<Thread> {
+  const worker = newWorker();
   await once(worker, 'message'); // 'ready': the worker's modules are loaded
   const waiting: { resolve(answer: unknown): void; reject(error: Error): void }[] = [];
   worker.on('message', (answer: unknown) => waiting.shift()?.resolve(answer));
