@@ -4,6 +4,8 @@
 // large file is never held in memory as text or as rows. The tokeniser (csv-tokeniser.ts, our own:
 // csv-parse took most of the parse time, see there) reports the line breaks inside each record; a
 // record starts on the line after the previous one ended and spans one line plus those breaks.
+// A visitor may also read plain rows straight from the bytes (rowBytes: the wide reader does; see
+// docs/performance.md for the gain); any row it leaves goes through the tokeniser as before.
 import { createReadStream } from 'node:fs';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
