@@ -6,7 +6,7 @@ import type { AlignedReturns, Frequency, ReturnKind, Weekday } from './types.js'
 import { dayNumberOfIso } from './calendar-date.js';
 import { buildGrid, DEFAULT_WEEK_END, sampleOnGrid } from './sampling.js';
 import type { DayGrid, DaySeries } from './sampling.js';
-import { excessReturns, simpleReturns } from './returns.js';
+import { excessReturns, simpleReturns, simpleReturnsInPlace } from './returns.js';
 import { perPeriodRates, yieldsUsed } from './risk-free.js';
 import type { RiskFreeSource } from './risk-free.js';
 
@@ -80,12 +80,13 @@ export function alignReturns(request: AlignRequest): AlignedSample {
   const marketRaw = simpleReturns(marketLevels);
   const securities = request.securities.map((series): AlignedSecurity => {
     const sampled = sampleOnGrid(series, grid, asOfDay);
-    const raw = simpleReturns(sampled);
+    const keep = request.keepSampledPrices === true;
+    const raw = keep ? simpleReturns(sampled) : simpleReturnsInPlace(sampled);
     return {
       id: series.id,
       raw,
       excess: excessReturns(raw, riskFree, request.returnKind),
-      sampledPrices: request.keepSampledPrices === true ? sampled : null,
+      sampledPrices: keep ? sampled : null,
     };
   });
   return {

@@ -1,6 +1,6 @@
 // Return rules from DESIGN.md "Returns"; values follow by arithmetic from the prices shown.
 import { describe, expect, it } from 'vitest';
-import { excessReturns, simpleReturns } from './returns.js';
+import { excessReturns, simpleReturns, simpleReturnsInPlace } from './returns.js';
 
 describe('simple returns on the grid', () => {
   it('forms P_t / P_{t-1} − 1 between consecutive periods, with none at index 0', () => {
@@ -36,5 +36,19 @@ describe('excess returns', () => {
 
   it('has no excess return where the risk-free rate is unknown', () => {
     expect(excessReturns(simple, Float64Array.from([0, Number.NaN, 0]), 'simple')[1]).toBeNaN();
+  });
+});
+
+describe('simpleReturnsInPlace', () => {
+  it('gives simpleReturns\' values over the prices themselves, gaps included', () => {
+    const prices = Float64Array.from([100, 101, Number.NaN, 103, 104, 0.5, Number.NaN, Number.NaN, 2]);
+    const expected = simpleReturns(prices);
+    const inPlace = simpleReturnsInPlace(prices);
+    expect(inPlace).toBe(prices);
+    expect(Array.from(inPlace)).toEqual(Array.from(expected));
+  });
+
+  it('leaves an empty series empty', () => {
+    expect(simpleReturnsInPlace(new Float64Array(0))).toHaveLength(0);
   });
 });

@@ -13,6 +13,19 @@ export function simpleReturns(sampledPrices: Float64Array): Float64Array {
   return returns;
 }
 
+/**
+ * simpleReturns written over the prices themselves (from the last period back, so each price is read
+ * before it is replaced): the same values without a second array, for callers that let the sampled
+ * prices go (on a 3,000 × 2,520 daily batch that is 60 MB less fresh memory).
+ */
+export function simpleReturnsInPlace(sampledPrices: Float64Array): Float64Array {
+  for (let t = sampledPrices.length - 1; t >= 1; t--) {
+    sampledPrices[t] = sampledPrices[t]! / sampledPrices[t - 1]! - 1;
+  }
+  if (sampledPrices.length > 0) sampledPrices[0] = Number.NaN;
+  return sampledPrices;
+}
+
 /** Simple: r − r_f. Log: ln(1 + r) − ln(1 + r_f), with Math.log1p for accuracy near zero. */
 export function excessReturns(simple: Float64Array, riskFree: Float64Array, kind: ReturnKind): Float64Array {
   const excess = new Float64Array(simple.length);
