@@ -12,20 +12,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readPriceFile } from './price-file.js';
 import type { PriceFile, PriceFileOptions } from './price-file-options.js';
 import { InputError } from './input-error.js';
+import { seededRandom } from '../engine/test-support/seeded-random.js';
 
 const options: PriceFileOptions = { delimiter: ',', dateFormat: 'YYYY-MM-DD', columns: { layout: 'wide', dateColumn: 'date' }, marketId: 'MKT' };
 
-/** Mulberry32, seeded so a failing file can be made again. */
-function generator(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Seeded uniform draws (mulberry32), so a failing file can be made again. */
+const uniformFrom = (seed: number): (() => number) => seededRandom(seed).uniform;
 
 function isoDate(dayNumber: number): string {
   return new Date(Date.UTC(2001, 0, 1) + dayNumber * 86_400_000).toISOString().slice(0, 10);
@@ -46,7 +38,7 @@ function priceCell(random: () => number, awkward: boolean): string {
 interface Made { readonly text: string; readonly name: string }
 
 function makeFile(seed: number, rows: number, securities: number, lineEnd: string, awkwardShare: number): Made {
-  const random = generator(seed);
+  const random = uniformFrom(seed);
   const ids = ['MKT', ...Array.from({ length: securities }, (_, k) => `QZ-T${String(k).padStart(4, '0')}`)];
   const lines = [['date', ...ids].join(',')];
   for (let r = 0; r < rows; r++) {

@@ -1,10 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_NUMBER_CELL_BYTES, writeNumberCell } from './number-bytes.js';
 import { formatNumberCell } from './result-csv.js';
+import { seededRandom } from '../../../cli/src/engine/test-support/seeded-random.js';
 
 // The reference is ECMA-262's Number::toString as Node's V8 implements it (String(x), through
 // formatNumberCell): the fewest digits that read back as the same double, the closest such decimal
 // when several have that many digits. writeNumberCell must write the same bytes for every double.
+
+/** Seeded uniform draws (mulberry32), so a failure can be replayed. */
+const uniformFrom = (seed: number): (() => number) => seededRandom(seed).uniform;
 
 const decoder = new TextDecoder();
 const buffer = new Uint8Array(64);
@@ -12,18 +16,6 @@ const buffer = new Uint8Array(64);
 function written(x: number): string {
   const end = writeNumberCell(buffer, 0, x);
   return decoder.decode(buffer.subarray(0, end));
-}
-
-/** Mulberry32, a small seeded generator, so a failure can be replayed. */
-function generator(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 function mismatches(values: Iterable<number>): { x: number; written: string; expected: string }[] {
@@ -42,17 +34,17 @@ function* sample(count: number, draw: () => number): Generator<number> {
 
 describe('writeNumberCell', () => {
   it('writes what formatNumberCell writes for betas drawn between -3 and 3', () => {
-    const random = generator(1);
+    const random = uniformFrom(1);
     expect(mismatches(sample(400_000, () => (random() - 0.5) * 6))).toEqual([]);
   });
 
   it('writes what formatNumberCell writes across twenty-five decades, both signs', () => {
-    const random = generator(2);
+    const random = uniformFrom(2);
     expect(mismatches(sample(300_000, () => (random() < 0.5 ? -1 : 1) * 10 ** (random() * 25 - 10)))).toEqual([]);
   });
 
   it('writes what formatNumberCell writes for random bit patterns (subnormals, huge values, NaN)', () => {
-    const random = generator(3);
+    const random = uniformFrom(3);
     const bits = new Float64Array(1);
     const words = new Uint32Array(bits.buffer);
     expect(mismatches(sample(200_000, () => {
@@ -63,12 +55,12 @@ describe('writeNumberCell', () => {
   });
 
   it('writes what formatNumberCell writes for short decimals (prices, rates, round figures)', () => {
-    const random = generator(4);
+    const random = uniformFrom(4);
     expect(mismatches(sample(200_000, () => Math.round(random() * 1e6) / 10 ** Math.floor(random() * 8)))).toEqual([]);
   });
 
   it('writes what formatNumberCell writes for whole numbers and halves up to 1e15 (no point, or one place)', () => {
-    const random = generator(5);
+    const random = uniformFrom(5);
     expect(mismatches(sample(200_000, () => Math.floor(random() * 10 ** (9 + random() * 6)) / (random() < 0.5 ? 1 : 2)))).toEqual([]);
   });
 
