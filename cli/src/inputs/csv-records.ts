@@ -28,8 +28,8 @@ export interface CsvVisitor {
   /**
    * Optional fast path: a data row as bytes[start, end) — one physical line without a quote or its
    * line break, after the header. Read it and answer true only when it has as many fields as the
-   * header and every one is read; answer false (having stored nothing) to have the row tokenised as
-   * text and given to row(), which then names any problem.
+   * header and every one is read; answer false to have the row tokenised as text and given to row()
+   * instead, which stores it afresh or names its problem.
    */
   rowBytes?(bytes: Uint8Array, start: number, end: number, line: number): boolean;
 }

@@ -80,7 +80,10 @@ function rowFromBytes(state: WideState, format: DateFormat, delimiter: number, b
     }
     if (field === dateField) {
       let stop = at;
-      while (stop < end && bytes[stop] !== delimiter) stop++;
+      while (stop < end && bytes[stop] !== delimiter) {
+        if (bytes[stop]! >= 0x80) return Number.NaN; // not ASCII: the text path decodes it
+        stop++;
+      }
       day = format.parse(String.fromCharCode.apply(null, bytes.subarray(at, stop) as unknown as number[]));
       if (Number.isNaN(day)) return Number.NaN;
       at = stop;

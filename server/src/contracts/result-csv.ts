@@ -73,7 +73,7 @@ export function selectResultColumns(names?: readonly ResultColumnName[]): readon
 }
 
 /** A text cell as RFC 4180 writes it: quoted when it holds a comma, a quote, CR or LF; quotes doubled. */
-export function csvTextField(text: string): string {
+function csvTextField(text: string): string {
   return /[",\r\n]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
 }
 
