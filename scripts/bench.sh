@@ -4,7 +4,8 @@
 # Clinometer (bench/run-bench.ts) and the same work in numpy/pandas (bench/reference_batch.py), checks
 # that their outputs agree to 1e-9, and prints the table of phase times, the ratio and peak memory.
 # Data and outputs stay under .data/bench/ (ignored by git). Settings: BENCH_THREADS (default 2),
-# BENCH_REPEAT (3), BENCH_SECURITIES (3000), BENCH_DAYS (2520). Exits non-zero when the outputs disagree.
+# BENCH_REPEAT (3), BENCH_SECURITIES (3000), BENCH_DAYS (2520), and BENCH_WORK (another folder for
+# the outputs and the build, as the tests use). Exits non-zero when the outputs disagree.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -16,8 +17,10 @@ SECURITIES="${BENCH_SECURITIES:-3000}"
 DAYS="${BENCH_DAYS:-2520}"
 THREADS="${BENCH_THREADS:-2}"
 REPEAT="${BENCH_REPEAT:-3}"
-DATA="$ROOT/.data/bench/data-${SECURITIES}x${DAYS}"
-OUT="$ROOT/.data/bench/out"
+WORK="${BENCH_WORK:-$ROOT/.data/bench}" # inside the project: the built bench finds node_modules from there
+DATA="$WORK/data-${SECURITIES}x${DAYS}"
+mkdir -p "$WORK"
+OUT="$WORK/out"
 
 if [ ! -f "$DATA/prices-wide.csv" ] || [ "$ROOT/bench/generate-wide.ts" -nt "$DATA/prices-wide.csv" ]; then
   say "generating $SECURITIES securities × $DAYS days in ${DATA#$ROOT/}"
@@ -26,7 +29,7 @@ fi
 # Clinometer's side runs built ahead into plain JavaScript (esbuild, one bundle per entry), as a
 # deployment would run it: started through tsx, the worker thread spends ~0.5 s compiling and
 # resolving TypeScript while the main thread parses (bench/slice-pool.ts runs either way).
-BUILD="$ROOT/.data/bench/build"
+BUILD="$WORK/build"
 rm -rf "$BUILD"
 node_modules/.bin/esbuild bench/run-bench.ts bench/batch-worker.ts --bundle --platform=node --format=esm \
   --target=node20 --packages=external --outdir="$BUILD" --log-level=warning
