@@ -4,14 +4,17 @@
 # Clinometer (bench/run-bench.ts) and the same work in numpy/pandas (bench/reference_batch.py), checks
 # that their outputs agree to 1e-9, and prints the table of phase times, the ratio and peak memory.
 # Data and outputs stay under .data/bench/ (ignored by git). Settings: BENCH_THREADS (default 2),
-# BENCH_REPEAT (3), BENCH_SECURITIES (3000), BENCH_DAYS (2520), and BENCH_WORK (another folder for
-# the outputs and the build, as the tests use). Exits non-zero when the outputs disagree.
+# BENCH_REPEAT (3), BENCH_SECURITIES (3000), BENCH_DAYS (2520), BENCH_WORK (another folder for the
+# data, the build and the outputs) and BENCH_NO_INSTALL (skip the install steps), as the tests use.
+# Exits non-zero when the outputs disagree.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 
-ensure_node_modules
-ensure_python_reference_libraries
+if [ -z "${BENCH_NO_INSTALL:-}" ]; then # the tests set it: nothing is installed while they run
+  ensure_node_modules
+  ensure_python_reference_libraries
+fi
 
 SECURITIES="${BENCH_SECURITIES:-3000}"
 DAYS="${BENCH_DAYS:-2520}"

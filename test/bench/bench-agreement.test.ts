@@ -21,7 +21,7 @@ describe('npm run bench on 40 securities × 400 days', { timeout: 300_000 }, () 
     const result = await execa('bash', ['scripts/bench.sh'], {
       cwd: ROOT,
       reject: false,
-      env: { BENCH_WORK: work, BENCH_SECURITIES: '40', BENCH_DAYS: '400', BENCH_REPEAT: '1' },
+      env: { BENCH_NO_INSTALL: '1', BENCH_WORK: work, BENCH_SECURITIES: '40', BENCH_DAYS: '400', BENCH_REPEAT: '1' },
     });
     expect(result.stdout + result.stderr).toContain('Outputs agree to 1e-9: yes');
     expect(result.exitCode).toBe(0);
