@@ -119,6 +119,17 @@ describe('wide price files read from bytes', () => {
     expect(error).toMatchObject({ code: 'INPUT_BAD_PRICE', file: path, line: 458, column: 124 });
   });
 
+  it('splits on a `.` delimiter as the text path does (a point never joins two cells)', async () => {
+    // `101.7.9` is three cells (101, 7, 9) for a header of two after the date, not the prices 101.7 and 9.
+    const text = 'date.MKT.QZ-A\n2024-01-02.100.7\n2024-01-03.101.7.9\n2024-01-04.99.9\n';
+    const path = await written({ text, name: 'dot-delimiter.csv' });
+    const error = await readPriceFile(path, { ...options, delimiter: '.' }).then(() => null, (caught: unknown) => caught);
+    expect(error).toMatchObject({ code: 'INPUT_FIELD_COUNT', file: path, line: 3, column: 4 });
+    const good = await written({ text: 'date.MKT.QZ-A\n2024-01-02.100.7\n2024-01-03.101.8\n2024-01-04.99.9\n', name: 'dot-delimiter-good.csv' });
+    const file = await readPriceFile(good, { ...options, delimiter: '.' });
+    expect(Array.from(file.securities[0]!.prices)).toEqual([7, 8, 9]);
+  });
+
   it('names the line of a short row that follows rows read from bytes', async () => {
     const made = makeFile(22, 600, 300, '\n', 0);
     const lines = made.text.split('\n');

@@ -99,10 +99,10 @@ function rowFromBytes(state: WideState, format: DateFormat, delimiter: number, b
         mantissa = mantissa * 10 + (code - 48);
         if (mantissa !== 0) digits++;
         if (fraction !== -1) fraction++;
+      } else if (code === delimiter) { // before the point: with `.` as the delimiter it ends the cell, as in the text path
+        break;
       } else if (code === DOT && fraction === -1) {
         fraction = 0;
-      } else if (code === delimiter) {
-        break;
       } else {
         return Number.NaN;
       }
