@@ -31,7 +31,7 @@ export interface CsvVisitor {
    * header and every one is read; answer false to have the row tokenised as text and given to row()
    * instead, which stores it afresh or names its problem.
    */
-  rowBytes?(bytes: Uint8Array, start: number, end: number, line: number): boolean;
+  rowBytes?(bytes: Buffer, start: number, end: number, line: number): boolean;
 }
 
 function isBlank(fields: readonly string[]): boolean {

@@ -7,7 +7,8 @@ import type { CellPlace } from './cell-problems.js';
 import { visitCsv } from './csv-records.js';
 import { ascendingOrder, findRepeatedDate, permuteFloat64, permuteInt32 } from './date-order.js';
 import { compileDateFormat } from './date-format.js';
-import type { DateFormat } from './date-format.js';
+import { DateCells, NOT_PLAIN, plainPrice, skipAsciiCell } from './byte-cells.js';
+import type { ByteCursor } from './byte-cells.js';
 import { growableInt32, pushInt32, trimmedInt32 } from './growable-array.js';
 import type { GrowableInt32 } from './growable-array.js';
 import { checkSecurityCodes, requireColumn } from './header-columns.js';
@@ -25,6 +26,7 @@ interface WideState {
   blocks: Float64Array[];
   days: GrowableInt32;
   lines: GrowableInt32;
+  readonly cursor: ByteCursor;
 }
 
 /** Columns per pass of the transposition: the rows of a block are read a cache-friendly strip at a time. */
@@ -54,69 +56,37 @@ function blockFor(state: WideState, row: number): Float64Array {
   return state.blocks[index]!;
 }
 
-const EXACT_POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
-const DOT = 46;
-
 /**
- * The byte path for the common row: a date the format reads as it stands and plain positive prices
- * (`digits[.digits]`, at most 15 significant digits, no padding) or empty cells, as many fields as
- * the header. Prices are mantissa / 10^k, as fastPrice() computes them from text (both operands exact,
- * one correctly rounded division), so both paths store the same doubles. Answers the row's day, or
- * NaN to leave the row to the text path (which then reads it, or names its problem).
+ * The byte path for the common row: a date the format reads as it stands (ASCII, no padding) and
+ * plain positive prices or empty cells (byte-cells.ts), as many fields as the header. Answers the
+ * row's day, or NaN to leave the row to the text path (which then reads it, or names its problem).
  */
-function rowFromBytes(state: WideState, format: DateFormat, delimiter: number, bytes: Uint8Array, start: number, end: number): number {
+function rowFromBytes(state: WideState, dates: DateCells, delimiter: number, bytes: Uint8Array, start: number, end: number): number {
   const row = state.days.length;
   const block = blockFor(state, row);
-  const width = state.valueFields.length;
-  const fields = width + 1;
+  const fields = state.valueFields.length + 1;
   const dateField = state.dateField;
-  let at = start;
+  const cursor = state.cursor;
+  cursor.at = start;
   let day = Number.NaN;
-  let k = (row % BLOCK_ROWS) * width;
+  let k = (row % BLOCK_ROWS) * state.valueFields.length;
   for (let field = 0; field < fields; field++) {
     if (field > 0) {
-      if (at >= end || bytes[at] !== delimiter) return Number.NaN; // too few fields
-      at++;
+      if (cursor.at >= end || bytes[cursor.at] !== delimiter) return Number.NaN; // too few fields
+      cursor.at++;
     }
     if (field === dateField) {
-      let stop = at;
-      while (stop < end && bytes[stop] !== delimiter) {
-        if (bytes[stop]! >= 0x80) return Number.NaN; // not ASCII: the text path decodes it
-        stop++;
-      }
-      day = format.parse(String.fromCharCode.apply(null, bytes.subarray(at, stop) as unknown as number[]));
+      const first = cursor.at;
+      if (!skipAsciiCell(bytes, cursor, end, delimiter)) return Number.NaN;
+      day = dates.dayOf(bytes, first, cursor.at);
       if (Number.isNaN(day)) return Number.NaN;
-      at = stop;
       continue;
     }
-    let mantissa = 0;
-    let digits = 0;
-    let fraction = -1;
-    const first = at;
-    for (; at < end; at++) {
-      const code = bytes[at]!;
-      if (code >= 48 && code <= 57) {
-        mantissa = mantissa * 10 + (code - 48);
-        if (mantissa !== 0) digits++;
-        if (fraction !== -1) fraction++;
-      } else if (code === delimiter) { // before the point: with `.` as the delimiter it ends the cell, as in the text path
-        break;
-      } else if (code === DOT && fraction === -1) {
-        fraction = 0;
-      } else {
-        return Number.NaN;
-      }
-    }
-    if (at === first) {
-      block[k++] = Number.NaN; // an empty cell: missing
-      continue;
-    }
-    if (digits > 15 || fraction > 22 || at - first === (fraction === -1 ? 0 : 1)) return Number.NaN;
-    const price = fraction > 0 ? mantissa / EXACT_POWERS_OF_TEN[fraction]! : mantissa;
-    if (!(price > 0)) return Number.NaN;
+    const price = plainPrice(bytes, cursor, end, delimiter);
+    if (price === NOT_PLAIN) return Number.NaN;
     block[k++] = price;
   }
-  return at === end ? day : Number.NaN; // more fields than the header: the text path says so
+  return cursor.at === end ? day : Number.NaN; // more fields than the header: the text path says so
 }
 
 export interface WideColumns {
@@ -133,7 +103,10 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
   const format = compileDateFormat(options.dateFormat);
   const state: WideState = {
     names: [], dateField: 0, valueFields: new Int32Array(0), blocks: [], days: growableInt32(), lines: growableInt32(),
+    cursor: { at: 0 },
   };
+  const dates = new DateCells((text) => format.parse(text));
+  const placeAt = (line: number, field: number): CellPlace => ({ file, line, field, columnName: state.names[field]! });
   await visitCsv(file, options, {
     header(names) {
       state.names = names;
@@ -145,9 +118,8 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
       checkSecurityCodes(file, names, Array.from(state.valueFields));
     },
     row(fields, line) {
-      const place = (field: number): CellPlace => ({ file, line, field, columnName: state.names[field]! });
       const day = format.parse(trimPadding(fields[state.dateField]!));
-      if (Number.isNaN(day)) throw badDate(place(state.dateField), fields[state.dateField]!, format);
+      if (Number.isNaN(day)) throw badDate(placeAt(line, state.dateField), fields[state.dateField]!, format);
       const row = state.days.length;
       pushInt32(state.days, day);
       pushInt32(state.lines, line);
@@ -157,12 +129,12 @@ async function readColumns(file: string, options: PriceFileOptions, layout: Wide
       for (let k = 0; k < width; k++) {
         const field = state.valueFields[k]!;
         const price = fastPrice(fields[field]!);
-        if (price === -1) throw badPrice(place(field), fields[field]!);
+        if (price === -1) throw badPrice(placeAt(line, field), fields[field]!);
         block[offset + k] = price;
       }
     },
     rowBytes(bytes, start, end, line) {
-      const day = rowFromBytes(state, format, options.delimiter.charCodeAt(0), bytes, start, end);
+      const day = rowFromBytes(state, dates, options.delimiter.charCodeAt(0), bytes, start, end);
       if (Number.isNaN(day)) return false;
       pushInt32(state.days, day);
       pushInt32(state.lines, line);

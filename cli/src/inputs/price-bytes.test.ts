@@ -1,6 +1,6 @@
-// The wide reader takes the common row straight from bytes and leaves any other row to the text
-// path (wide-price-file.ts, csv-records.ts). Whichever path reads a row, the prices must be what an
-// independent reading gives: csv-parse (the npm CSV parser, RFC 4180) for the records and
+// The wide and long readers take the common row straight from bytes and leave any other row to the
+// text path (wide-price-file.ts, long-price-file.ts, byte-cells.ts, csv-records.ts). Whichever path
+// reads a row, the prices must be what an independent reading gives: csv-parse (the npm CSV parser, RFC 4180) for the records and
 // JavaScript's Number() for the cells (ECMA-262 StringToNumber), on random files that mix plain rows
 // with rows the byte path must leave alone (padding, quotes, exponents, 16+ digits), larger than the
 // reader's 1 MB read size so rows also straddle reads.
@@ -14,6 +14,9 @@ import type { PriceFile, PriceFileOptions } from './price-file-options.js';
 import { InputError } from './input-error.js';
 import { seededRandom } from '../engine/test-support/seeded-random.js';
 
+const longOptions: PriceFileOptions = {
+  delimiter: ',', dateFormat: 'YYYY-MM-DD', columns: { layout: 'long', dateColumn: 'date', securityColumn: 'security', closeColumn: 'close' }, marketId: 'MKT',
+};
 const options: PriceFileOptions = { delimiter: ',', dateFormat: 'YYYY-MM-DD', columns: { layout: 'wide', dateColumn: 'date' }, marketId: 'MKT' };
 
 /** Seeded uniform draws (mulberry32), so a failing file can be made again. */
@@ -137,5 +140,75 @@ describe('wide price files read from bytes', () => {
     const path = await written({ text: lines.join('\n'), name: 'short-row.csv' });
     const error = await readPriceFile(path, options).then(() => null, (caught: unknown) => caught);
     expect(error).toMatchObject({ code: 'INPUT_FIELD_COUNT', file: path, line: 301, column: 201 });
+  });
+});
+
+/** A long file (date, security, close, volume) of `securities` × `days`, rows in the given order. */
+function makeLongFile(seed: number, days: number, securities: number, order: 'by date' | 'by security' | 'shuffled', awkwardShare: number): Made {
+  const random = uniformFrom(seed);
+  const ids = ['MKT', ...Array.from({ length: securities }, (_, k) => `QZ-L${String(k).padStart(3, '0')}`)];
+  const rows: string[] = [];
+  for (const id of ids) {
+    for (let d = 0; d < days; d++) {
+      const awkward = random() < awkwardShare;
+      let code = id;
+      if (awkward && random() < 0.3) code = random() < 0.5 ? ` ${id}\t` : `"${id}"`;
+      const close = id === 'MKT' ? (100 + d + random()).toFixed(3) : priceCell(random, awkward);
+      rows.push(`${isoDate(d)},${code},${close},${Math.floor(random() * 1000)}`);
+    }
+  }
+  if (order === 'by date') rows.sort((a, b) => a.slice(0, 10).localeCompare(b.slice(0, 10)));
+  if (order === 'shuffled') {
+    for (let i = rows.length - 1; i > 0; i--) {
+      const j = Math.floor(random() * (i + 1));
+      [rows[i], rows[j]] = [rows[j]!, rows[i]!];
+    }
+  }
+  return { text: `date,security,close,volume\n${rows.join('\n')}\n`, name: `long-${seed}.csv` };
+}
+
+/** csv-parse records, trimmed codes and cells, Number(): id → date → price for the non-empty cells. */
+function referenceLongReading(text: string): Map<string, Map<string, number>> {
+  const [, ...records] = parse(text) as string[][];
+  const byId = new Map<string, Map<string, number>>();
+  for (const [date, code, close] of records) {
+    const id = code!.trim();
+    if (!byId.has(id)) byId.set(id, new Map());
+    if (close!.trim() !== '') byId.get(id)!.set(date!, Number(close!.trim()));
+  }
+  return byId;
+}
+
+describe('long price files read from bytes', () => {
+  const cases = [
+    { behaviour: 'rows by date, all plain', seed: 31, order: 'by date', awkwardShare: 0 },
+    { behaviour: 'rows by security, one in twenty awkward', seed: 32, order: 'by security', awkwardShare: 0.05 },
+    { behaviour: 'rows shuffled, one in twenty awkward', seed: 33, order: 'shuffled', awkwardShare: 0.05 },
+    { behaviour: 'rows by date, mostly awkward (the byte path gives up)', seed: 34, order: 'by date', awkwardShare: 0.9 },
+  ] as const;
+  for (const { behaviour, seed, order, awkwardShare } of cases) {
+    it(`gives csv-parse and Number()'s prices for ${behaviour}`, async () => {
+      const made = makeLongFile(seed, 500, 80, order, awkwardShare);
+      expect(made.text.length).toBeGreaterThan(1 << 20); // more than one read of the reader
+      const file = await readPriceFile(await written(made), longOptions);
+      const reading = readingOf(file);
+      expect(new Map([...reading].sort(([a], [b]) => a.localeCompare(b)))).toEqual(new Map([...referenceLongReading(made.text)].sort(([a], [b]) => a.localeCompare(b))));
+    });
+  }
+
+  it('names the line and column of a bad close, and of an empty code, after rows read from bytes', async () => {
+    const made = makeLongFile(35, 300, 40, 'by date', 0);
+    const lines = made.text.split('\n');
+    const badClose = lines[5000]!.split(',');
+    badClose[2] = '1;5';
+    lines[5000] = badClose.join(',');
+    const path = await written({ text: lines.join('\n'), name: 'long-bad-close.csv' });
+    await expect(readPriceFile(path, longOptions)).rejects.toMatchObject({ code: 'INPUT_BAD_PRICE', file: path, line: 5001, column: 3 });
+    const again = made.text.split('\n');
+    const noCode = again[7000]!.split(',');
+    noCode[1] = '  ';
+    again[7000] = noCode.join(',');
+    const emptyCode = await written({ text: again.join('\n'), name: 'long-empty-code.csv' });
+    await expect(readPriceFile(emptyCode, longOptions)).rejects.toMatchObject({ code: 'INPUT_EMPTY_SECURITY', file: emptyCode, line: 7001, column: 2 });
   });
 });
