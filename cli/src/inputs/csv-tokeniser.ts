@@ -10,7 +10,7 @@
 //   closing quote must be followed by the delimiter, the record break or the end of the text;
 // - a line break at the very end does not start an empty record.
 // The caller strips a byte order mark; the tokeniser sees text only. Between pieces, a caller may read
-// whole records itself straight from bytes (csv-records.ts) while idleBreak() says no record is open.
+// whole records itself straight from bytes (record-sink.ts) while idleBreak() says no record is open.
 
 /** A quote problem; `field` is the 0-based field of the record being read. */
 export class CsvQuoteError extends Error {

@@ -1,5 +1,5 @@
 // The wide and long readers take the common row straight from bytes and leave any other row to the
-// text path (wide-price-file.ts, long-price-file.ts, byte-cells.ts, csv-records.ts). Whichever path
+// text path (wide-price-file.ts, long-rows.ts, byte-cells.ts, record-sink.ts). Whichever path
 // reads a row, the prices must be what an independent reading gives: csv-parse (the npm CSV parser, RFC 4180) for the records and
 // JavaScript's Number() for the cells (ECMA-262 StringToNumber), on random files that mix plain rows
 // with rows the byte path must leave alone (padding, quotes, exponents, 16+ digits), larger than the
