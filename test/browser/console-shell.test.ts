@@ -1,11 +1,11 @@
 /// <reference lib="dom" />
 /// <reference lib="dom.iterable" />
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { createTestPerson } from '../../server/src/auth/auth-test-support.js';
 import { openBrowser, submitSignIn, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
-import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
+import { useTestDatabase, type TestDatabase } from '../support/test-database.js';
 
 interface FontState {
   family: string;
@@ -21,8 +21,8 @@ describe('the built console in Chromium', () => {
   const fontResponses: string[] = [];
   let fonts: FontState[] = [];
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     server = await startServer(db);
     browser = await openBrowser();
     page = await browser.context.newPage();
@@ -50,7 +50,6 @@ describe('the built console in Chromium', () => {
   afterAll(async () => {
     await browser?.close();
     await server?.close();
-    await db?.drop();
   });
 
   it('renders the shell with the product name and the navigation', async () => {

@@ -1,8 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { createTestPerson, type TestPerson } from '../../server/src/auth/auth-test-support.js';
 import { openBrowser, submitSignIn, type BrowserSession } from '../support/browser.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
-import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
+import { useTestDatabase, type TestDatabase } from '../support/test-database.js';
 
 describe('signing in to the console in Chromium', () => {
   let db: TestDatabase;
@@ -10,8 +10,8 @@ describe('signing in to the console in Chromium', () => {
   let browser: BrowserSession;
   let supervisor: TestPerson;
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     server = await startServer(db);
     supervisor = await createTestPerson('supervisor');
     browser = await openBrowser();
@@ -20,7 +20,6 @@ describe('signing in to the console in Chromium', () => {
   afterAll(async () => {
     await browser?.close();
     await server?.close();
-    await db?.drop();
   });
 
   async function signIn(userName: string, password: string) {

@@ -4,28 +4,27 @@
 import { mkdtempSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '../../server/src/db/seed-demo.js';
 import { createLogger } from '../../server/src/shared/logger.js';
 import { seedDemoDrop } from '../../scripts/demo-drop.js';
 import { pushDemoSpecs } from '../../scripts/demo-specs.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
-import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
+import { useTestDatabase, type TestDatabase } from '../support/test-database.js';
 import { ROOT, clino, isolatedEnv } from './support/clino.js';
 
 const TOKEN = 'clino_demo-start-test-token-0123456789';
 let db: TestDatabase;
 let server: RunningServer;
 
-beforeAll(async () => {
-  db = await createTestDatabase();
+useTestDatabase(async (made) => {
+  db = made;
   server = await startServer(db);
   await seedDemo(db.sequelize, createLogger('silent'), { ...db.settings.auth, passwordHashRounds: 4, demoMachineToken: TOKEN });
 });
 
 afterAll(async () => {
   await server?.close();
-  await db?.drop();
 });
 
 describe('the demo start', { timeout: 180_000 }, () => {

@@ -4,13 +4,13 @@
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { rerunRun } from '../../server/src/runs/rerun.service.js';
 import { User } from '../../server/src/people/user.model.js';
 import { seedDemo } from '../../server/src/db/seed-demo.js';
 import { createLogger } from '../../server/src/shared/logger.js';
 import { startServer, type RunningServer } from '../support/running-server.js';
-import { createTestDatabase, type TestDatabase } from '../support/test-database.js';
+import { useTestDatabase, type TestDatabase } from '../support/test-database.js';
 import { ROOT, clino, isolatedEnv } from './support/clino.js';
 
 const TOKEN = 'clino_cli-flow-test-token-0123456789';
@@ -28,8 +28,8 @@ async function machineGet(url: string): Promise<unknown> {
   return response.json();
 }
 
-beforeAll(async () => {
-  db = await createTestDatabase();
+useTestDatabase(async (made) => {
+  db = made;
   server = await startServer(db);
   await seedDemo(db.sequelize, createLogger('silent'), { ...db.settings.auth, passwordHashRounds: 4, demoMachineToken: TOKEN });
   env = isolatedEnv();
@@ -37,7 +37,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await server?.close();
-  await db?.drop();
 });
 
 describe('clino with the real server', { timeout: 180_000 }, () => {

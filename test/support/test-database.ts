@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
+import { afterAll, beforeAll } from 'vitest';
 import { loadSettings, type Settings } from '../../server/src/config.js';
 import { createMigrator } from '../../server/src/db/migrator.js';
 import { createSequelize } from '../../server/src/db/sequelize.js';
@@ -32,4 +33,20 @@ export async function createTestDatabase(options: { migrate?: boolean } = {}): P
       await sequelize.close();
     },
   };
+}
+
+/**
+ * A fresh database for the tests of the enclosing describe block (or file): created before them and
+ * handed to `ready` (to keep it, make the app, add people), dropped after every other after-hook of
+ * the block (vitest runs after-hooks last-registered first).
+ */
+export function useTestDatabase(ready: (db: TestDatabase) => Promise<void> | void, options: { migrate?: boolean } = {}): void {
+  let made: TestDatabase | undefined;
+  beforeAll(async () => {
+    made = await createTestDatabase(options);
+    await ready(made);
+  });
+  afterAll(async () => {
+    await made?.drop();
+  });
 }

@@ -1,5 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createTestPerson, signedInAgent, type TestAgent } from '../auth/auth-test-support.js';
 import { AuditEvent } from './audit-event.model.js';
 import { recordAudit } from './audit.service.js';
@@ -24,8 +24,8 @@ describe('the audit trail', () => {
     return res.body as { items: Item[]; total: number; page: number; pageSize: number };
   }
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     const app = appOver(db);
     supervisor = (await signedInAgent(app, await createTestPerson('supervisor'))).agent;
     // Five probe events at known instants, written out of order.
@@ -36,9 +36,6 @@ describe('the audit trail', () => {
     await at('2031-05-01T10:00:00.000Z', 'probe.remove', 'oto.two', 'p5');
     await at('2031-02-01T10:00:00.000Z', 'probe.update', 'oto.two', 'p2');
     await at('2031-04-01T10:00:00.000Z', 'probe.update', 'nia.one', 'p4');
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('lists events newest first', async () => {
@@ -82,12 +79,9 @@ describe('the audit trail', () => {
 
 describe('recordAudit inside the caller’s transaction', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     appOver(db);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('writes the event when the transaction commits, with the actor columns of each principal kind', async () => {

@@ -1,8 +1,8 @@
 // CSRF with Angular's defaults: the XSRF-TOKEN cookie is copied into the X-XSRF-TOKEN header, and the
 // server compares it with the copy it keeps in the session (double submit bound to the session; OWASP
 // Cross-Site Request Forgery Prevention Cheat Sheet, "Signed double-submit cookie" [memory]).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { anonymousAgent, createTestPerson, CSRF_HEADER, signedInAgent, type TestPerson } from './auth-test-support.js';
 import { appOver } from '../../../test/support/test-app.js';
@@ -12,13 +12,10 @@ describe('CSRF protection of cookie-authenticated writes', () => {
   let app: ReturnType<typeof createApp>;
   let admin: TestPerson;
   const body = () => ({ userName: `csrf.probe.${Math.random().toString(36).slice(2, 8)}`, displayName: 'Probe', email: 'probe@test.invalid', role: 'viewer', password: 'probe-password-1' });
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
     admin = await createTestPerson('admin');
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('rejects a signed-in write without the X-XSRF-TOKEN header', async () => {

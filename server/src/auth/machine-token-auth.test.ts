@@ -1,8 +1,8 @@
 // Bearer machine tokens (RFC 6750 §2.1 header form; a bad token answers 401, §3.1 [memory]).
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { MachineToken } from '../people/machine-token.model.js';
 import { User } from '../people/user.model.js';
@@ -13,12 +13,9 @@ import { appOver } from '../../../test/support/test-app.js';
 describe('machine tokens on the API', () => {
   let db: TestDatabase;
   let app: ReturnType<typeof createApp>;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('makes the caller a machine principal named by the token', async () => {

@@ -3,8 +3,8 @@
 // covers every feature's routes as they are added. Path parameters get ids that do not exist: a 404 or
 // a 400 still shows that the caller got past requireRole().
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { anonymousAgent, createTestMachineToken, createTestPerson, CSRF_HEADER, signedInAgent, type TestAgent } from './auth-test-support.js';
 import { ROLES } from './principal.js';
@@ -39,8 +39,8 @@ describe('the role matrix on the real app', () => {
   let app: ReturnType<typeof createApp>;
   const callers: Caller[] = [];
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
     for (const role of ROLES) {
       const { agent, csrf } = await signedInAgent(app, await createTestPerson(role));
@@ -50,9 +50,6 @@ describe('the role matrix on the real app', () => {
     callers.push({ name: 'machine', send: (method, url) => request(app)[method.toLowerCase() as 'get'](url).set('Authorization', `Bearer ${token.value}`) });
     const anonymous = await anonymousAgent(app);
     callers.push(viaAgent('unauthenticated', anonymous.agent, anonymous.csrf));
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('lists every route registered in the app', () => {

@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { createLogger } from '../shared/logger.js';
 import { anonymousAgent, createTestPerson, CSRF_HEADER, signedInAgent, type TestPerson } from './auth-test-support.js';
@@ -21,13 +21,10 @@ describe('signing in and out', () => {
   let db: TestDatabase;
   let app: ReturnType<typeof createApp>;
   let analyst: TestPerson;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
     analyst = await createTestPerson('analyst');
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('signs a person in with the right password and then answers who they are', async () => {
@@ -106,13 +103,10 @@ describe('signing in and out', () => {
 describe('session cookie flags', () => {
   let db: TestDatabase;
   let person: TestPerson;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     appOver(db);
     person = await createTestPerson('supervisor');
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   async function signInCookies(secureCookies: boolean, forwardedProto?: string): Promise<{ session: string; csrf: string }> {
@@ -158,12 +152,9 @@ describe('session cookie flags', () => {
 describe('sign-in throttling', () => {
   let db: TestDatabase;
   let app: ReturnType<typeof createApp>;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('locks a user name out after the configured number of failures, even for the right password', async () => {

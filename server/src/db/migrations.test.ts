@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createMigrator } from './migrator.js';
 
 async function tableNames(db: TestDatabase): Promise<string[]> {
@@ -13,12 +13,9 @@ async function tableNames(db: TestDatabase): Promise<string[]> {
 
 describe('migrations on the real MariaDB', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase({ migrate: false });
-  });
-  afterAll(async () => {
-    await db.drop();
-  });
+  useTestDatabase(async (made) => {
+    db = made;
+  }, { migrate: false });
 
   it('applies every migration, rolls all of them back, and applies them again', async () => {
     const migrator = createMigrator(db.sequelize);

@@ -1,7 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { signedInAgent } from '../auth/auth-test-support.js';
 import { ROLES } from '../auth/principal.js';
@@ -17,13 +17,10 @@ describe('the demo seed', () => {
   const firstValue = 'demo-watcher-token-value-one-0123456789';
   const auth = () => ({ ...db.settings.auth, passwordHashRounds: 4 });
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
     await seedDemo(db.sequelize, createLogger('silent'), { ...auth(), demoMachineToken: firstValue });
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('has one person per role and a second supervisor', () => {
@@ -80,12 +77,9 @@ describe('the demo seed', () => {
 
 describe('the demo seed without a given token value', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     appOver(db);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('makes a random token once and returns its value, then leaves it alone', async () => {

@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { createSequelize } from '../db/sequelize.js';
 import { createLogger } from '../shared/logger.js';
@@ -8,11 +8,8 @@ import { appOver } from '../../../test/support/test-app.js';
 
 describe('GET /api/health', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase();
-  });
-  afterAll(async () => {
-    await db.drop();
+  useTestDatabase(async (made) => {
+    db = made;
   });
 
   it('reports the database as connected when MariaDB answers', async () => {

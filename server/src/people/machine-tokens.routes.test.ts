@@ -1,8 +1,8 @@
 import { createHash } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { createTestPerson, CSRF_HEADER, signedInAgent, type TestAgent } from '../auth/auth-test-support.js';
 import { appOver } from '../../../test/support/test-app.js';
@@ -18,15 +18,12 @@ describe('machine token administration', () => {
     return { id: res.body.token.id as number, value: res.body.value as string };
   }
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = appOver(db);
     const person = await createTestPerson('admin');
     adminName = person.userName;
     admin = await signedInAgent(app, person);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('shows the value once at creation and stores only its sha256', async () => {

@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../test/support/test-database.js';
 import { createApp } from '../app.js';
 import { anonymousAgent, createTestPerson, CSRF_HEADER, signedInAgent, type TestAgent } from '../auth/auth-test-support.js';
 import { createLogger } from '../shared/logger.js';
@@ -38,15 +38,12 @@ describe('people administration', () => {
     return res.body.id as number;
   }
 
-  beforeAll(async () => {
-    db = await createTestDatabase();
+  useTestDatabase(async (made) => {
+    db = made;
     app = createApp({ settings: { ...db.settings, auth: { ...db.settings.auth, passwordHashRounds: 4 } }, sequelize: db.sequelize, logger: createLogger('silent') });
     const person = await createTestPerson('admin');
     adminName = person.userName;
     admin = await signedInAgent(app, person);
-  });
-  afterAll(async () => {
-    await db.drop();
   });
 
   it('creates a person who can then sign in, and never shows the password hash', async () => {

@@ -1,6 +1,6 @@
 import { ForeignKeyConstraintError, QueryTypes } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
 import { createMigrator } from '../migrator.js';
 
 const BEFORE = '0017-mail-messages';
@@ -30,12 +30,9 @@ const insertToken = (db: TestDatabase, ownerUserId: number | null) =>
 
 describe('migration 0018: the owner of a machine token', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase({ migrate: false });
-  });
-  afterAll(async () => {
-    await db.drop();
-  });
+  useTestDatabase(async (made) => {
+    db = made;
+  }, { migrate: false });
 
   it('adds a nullable owner column referencing users, removes it on down, and adds it again', async () => {
     const migrator = createMigrator(db.sequelize);

@@ -1,8 +1,8 @@
 import connectSessionSequelize from 'connect-session-sequelize';
 import session from 'express-session';
 import { QueryTypes, UniqueConstraintError } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
 import { initSessionRecord, SESSION_MODEL_NAME } from '../../auth/session-record.model.js';
 import { createMigrator } from '../migrator.js';
 
@@ -27,12 +27,9 @@ async function uniqueIndexes(db: TestDatabase): Promise<string[]> {
 
 describe('migrations 0002–0006: people, machine tokens, sessions, audit events', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase({ migrate: false });
-  });
-  afterAll(async () => {
-    await db.drop();
-  });
+  useTestDatabase(async (made) => {
+    db = made;
+  }, { migrate: false });
 
   it('go up, down and up again, each down removing what its up made', async () => {
     const migrator = createMigrator(db.sequelize);

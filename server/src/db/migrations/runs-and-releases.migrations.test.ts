@@ -1,6 +1,6 @@
 import { QueryTypes, UniqueConstraintError } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
+import { describe, expect, it } from 'vitest';
+import { useTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
 import { createMigrator } from '../migrator.js';
 
 const MINE = [
@@ -38,12 +38,9 @@ async function uniqueIndexes(db: TestDatabase): Promise<string[]> {
 
 describe('migrations 0010–0017: jobs, specs, runs, results, uploads, lists, releases, mail', () => {
   let db: TestDatabase;
-  beforeAll(async () => {
-    db = await createTestDatabase({ migrate: false });
-  });
-  afterAll(async () => {
-    await db.drop();
-  });
+  useTestDatabase(async (made) => {
+    db = made;
+  }, { migrate: false });
 
   it('go up, down and up again, each down removing what its up made', async () => {
     const migrator = createMigrator(db.sequelize);
