@@ -29,11 +29,13 @@ describe('people administration', () => {
     );
   }
 
+  /** POST /api/people as the signed-in admin. */
+  function postPerson(body: Record<string, string>) {
+    return admin.agent.post('/api/people').set(CSRF_HEADER, admin.csrf).send(body);
+  }
+
   async function create(userName: string, role = 'analyst', password = 'first-password-1'): Promise<number> {
-    const res = await admin.agent
-      .post('/api/people')
-      .set(CSRF_HEADER, admin.csrf)
-      .send({ userName, displayName: `Person ${userName}`, email: `${userName}@demo-fund.invalid`, role, password })
+    const res = await postPerson({ userName, displayName: `Person ${userName}`, email: `${userName}@demo-fund.invalid`, role, password })
       .expect(201);
     return res.body.id as number;
   }
@@ -47,10 +49,7 @@ describe('people administration', () => {
   });
 
   it('creates a person who can then sign in, and never shows the password hash', async () => {
-    const res = await admin.agent
-      .post('/api/people')
-      .set(CSRF_HEADER, admin.csrf)
-      .send({ userName: 'Gus.Ops', displayName: 'Gus Ops', email: 'gus@demo-fund.invalid', role: 'ops', password: 'gus-password-12' })
+    const res = await postPerson({ userName: 'Gus.Ops', displayName: 'Gus Ops', email: 'gus@demo-fund.invalid', role: 'ops', password: 'gus-password-12' })
       .expect(201);
     expect(res.body).toMatchObject({ userName: 'gus.ops', role: 'ops', active: true });
     expect(JSON.stringify(res.body)).not.toMatch(/password|\$2[aby]\$/i);
@@ -75,19 +74,13 @@ describe('people administration', () => {
 
   it('refuses a taken user name with 409', async () => {
     await create('ivy.taken');
-    const res = await admin.agent
-      .post('/api/people')
-      .set(CSRF_HEADER, admin.csrf)
-      .send({ userName: 'ivy.taken', displayName: 'Other', email: 'o@demo-fund.invalid', role: 'viewer', password: 'other-password-1' })
+    const res = await postPerson({ userName: 'ivy.taken', displayName: 'Other', email: 'o@demo-fund.invalid', role: 'viewer', password: 'other-password-1' })
       .expect(409);
     expect(res.body.error.code).toBe('CONFLICT');
   });
 
   it('refuses a password shorter than 12 characters, naming the field', async () => {
-    const res = await admin.agent
-      .post('/api/people')
-      .set(CSRF_HEADER, admin.csrf)
-      .send({ userName: 'jo.short', displayName: 'Jo', email: 'jo@demo-fund.invalid', role: 'viewer', password: 'short' })
+    const res = await postPerson({ userName: 'jo.short', displayName: 'Jo', email: 'jo@demo-fund.invalid', role: 'viewer', password: 'short' })
       .expect(400);
     expect(res.body.error.details.issues[0]).toMatchObject({ in: 'body', path: 'password' });
   });
