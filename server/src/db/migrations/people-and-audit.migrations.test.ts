@@ -5,17 +5,12 @@ import { describe, expect, it } from 'vitest';
 import { useTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
 import { initSessionRecord, SESSION_MODEL_NAME } from '../../auth/session-record.model.js';
 import { createMigrator } from '../migrator.js';
+import { tablesAmong } from './migration-test-support.js';
 
 const MINE = ['audit_events', 'machine_tokens', 'sessions', 'users'];
 const LAST_OF_MINE = '0006-unique-user-names-and-token-hashes';
 
-async function tables(db: TestDatabase): Promise<string[]> {
-  const rows = await db.sequelize.query<{ name: string }>(
-    'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY table_name',
-    { type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => r.name).filter((n) => MINE.includes(n));
-}
+const tables = (db: TestDatabase): Promise<string[]> => tablesAmong(db, MINE);
 
 async function uniqueIndexes(db: TestDatabase): Promise<string[]> {
   const rows = await db.sequelize.query<{ t: string; c: string }>(

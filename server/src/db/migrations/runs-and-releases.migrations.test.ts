@@ -2,6 +2,7 @@ import { QueryTypes, UniqueConstraintError } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { useTestDatabase, type TestDatabase } from '../../../../test/support/test-database.js';
 import { createMigrator } from '../migrator.js';
+import { tablesAmong } from './migration-test-support.js';
 
 const MINE = [
   'distribution_lists',
@@ -20,13 +21,7 @@ const MINE = [
 ];
 const FIRST_OF_MINE = '0010-jobs';
 
-async function tables(db: TestDatabase): Promise<string[]> {
-  const rows = await db.sequelize.query<{ name: string }>(
-    'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY table_name',
-    { type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => r.name).filter((n) => MINE.includes(n)).sort();
-}
+const tables = (db: TestDatabase): Promise<string[]> => tablesAmong(db, MINE);
 
 async function uniqueIndexes(db: TestDatabase): Promise<string[]> {
   const rows = await db.sequelize.query<{ i: string }>(
